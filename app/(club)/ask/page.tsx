@@ -1,0 +1,3 @@
+export default function Page() {
+  return <h1 className="page-title">Ask</h1>;
+}

@@ -1,0 +1,13 @@
+import { NextResponse } from 'next/server';
+import { z } from 'zod';
+import { parseQuery, route } from '@/lib/http/route';
+import { listOutbox } from '@/lib/data/outbox';
+import { requireUser } from '@/lib/auth/session';
+
+const query = z.object({ limit: z.coerce.number().int().min(1).max(200).optional() });
+
+export const GET = route(async (req) => {
+  const { limit } = parseQuery(req, query);
+  const actor = await requireUser();
+  return NextResponse.json({ items: await listOutbox(actor, limit) });
+});

@@ -1,0 +1,30 @@
+import type { Metadata, Viewport } from 'next';
+import './globals.css';
+import { sans, display } from './fonts';
+import { SiteHeader } from '@/components/site-header';
+
+export const metadata: Metadata = {
+  title: { default: 'Candlewise', template: '%s · Candlewise' },
+  description: 'Shoot-by-shoot advice, a curated species knowledge base and a club record for growers of pines and other conifers.',
+};
+
+export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#33522c' };
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${sans.variable} ${display.variable}`}>
+      <body className="min-h-screen">
+        <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
+          Skip to content
+        </a>
+        <SiteHeader />
+        <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6 sm:py-10">
+          {children}
+        </main>
+        <footer className="no-print mx-auto max-w-5xl px-4 pb-8 text-sm text-stone-600">
+          Candlewise gives general guidance. Follow fertiliser labels and your local rules on collecting, planting out and chemicals.
+        </footer>
+      </body>
+    </html>
+  );
+}

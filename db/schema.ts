@@ -1,0 +1,185 @@
+import {
+  boolean, date, index, integer, jsonb, pgTable, primaryKey, real, serial, text, timestamp, uniqueIndex,
+} from 'drizzle-orm/pg-core';
+
+// Every table of Candlewise lives here so that migrations come from one place (drizzle-kit generate).
+
+export const roles = ['member', 'editor', 'librarian', 'admin'] as const;
+export type Role = (typeof roles)[number];
+
+export const users = pgTable('users', {
+  id: text('id').primaryKey().$defaultFn(() => crypto.randomUUID()),
+  name: text('name'),
+  email: text('email').notNull().unique(),
+  emailVerified: timestamp('email_verified', { mode: 'date' }),
+  image: text('image'),
+  passwordHash: text('password_hash'),
+  role: text('role').$type<Role>().notNull().default('member'),
+  disabled: boolean('disabled').notNull().default(false),
+  // Bumped on sign-out, role change and disable: tokens carrying an older version stop working.
+  tokenVersion: integer('token_version').notNull().default(0),
+  digestOptIn: boolean('digest_opt_in').notNull().default(false),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+});
+
+export const accounts = pgTable('accounts', {
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  type: text('type').notNull(),
+  provider: text('provider').notNull(),
+  providerAccountId: text('provider_account_id').notNull(),
+  refresh_token: text('refresh_token'),
+  access_token: text('access_token'),
+  expires_at: integer('expires_at'),
+  token_type: text('token_type'),
+  scope: text('scope'),
+  id_token: text('id_token'),
+  session_state: text('session_state'),
+}, (t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })]);
+
+export const sessions = pgTable('sessions', {
+  sessionToken: text('session_token').primaryKey(),
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  expires: timestamp('expires', { mode: 'date' }).notNull(),
+});
+
+export const verificationTokens = pgTable('verification_tokens', {
+  identifier: text('identifier').notNull(),
+  token: text('token').notNull(),
+  expires: timestamp('expires', { mode: 'date' }).notNull(),
+}, (t) => [primaryKey({ columns: [t.identifier, t.token] })]);
+
+export const clubSettings = pgTable('club_settings', {
+  id: integer('id').primaryKey().default(1),
+  clubName: text('club_name').notNull().default('Our bonsai club'),
+  hemisphere: text('hemisphere').$type<'north' | 'south'>().notNull().default('north'),
+  defaultLatitude: real('default_latitude').notNull().default(45),
+  updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+});
+
+export const outboxMessages = pgTable('outbox_messages', {
+  id: serial('id').primaryKey(),
+  envelopeFrom: text('envelope_from').notNull(),
+  envelopeTo: jsonb('envelope_to').$type<string[]>().notNull(),
+  subject: text('subject').notNull().default(''),
+  text: text('text'),
+  html: text('html'),
+  raw: text('raw').notNull(),
+  receivedAt: timestamp('received_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('outbox_received_idx').on(t.receivedAt)]);
+
+// Species: one row per species with the published revision's searchable fields denormalised,
+// and every revision (draft or published) kept in species_revisions.
+export const species = pgTable('species', {
+  id: serial('id').primaryKey(),
+  slug: text('slug').notNull().unique(),
+  botanicalName: text('botanical_name').notNull(),
+  commonNames: jsonb('common_names').$type<string[]>().notNull().default([]),
+  synonyms: jsonb('synonyms').$type<string[]>().notNull().default([]),
+  genus: text('genus').notNull(),
+  group: text('group').notNull(),
+  flushHabit: text('flush_habit').$type<'single' | 'double'>(),
+  vigour: text('vigour').$type<'low' | 'moderate' | 'high'>(),
+  needleMinMm: real('needle_min_mm'),
+  needleMaxMm: real('needle_max_mm'),
+  publishedRevision: integer('published_revision'),
+  latestRevision: integer('latest_revision').notNull().default(0),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+});
+
+export const speciesRevisions = pgTable('species_revisions', {
+  id: serial('id').primaryKey(),
+  speciesId: integer('species_id').notNull().references(() => species.id, { onDelete: 'cascade' }),
+  revision: integer('revision').notNull(),
+  status: text('status').$type<'draft' | 'published'>().notNull(),
+  data: jsonb('data').$type<Record<string, unknown>>().notNull(),
+  body: text('body').notNull().default(''),
+  summary: text('summary').notNull().default(''),
+  editorId: text('editor_id').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [uniqueIndex('species_revision_uq').on(t.speciesId, t.revision)]);
+
+export const trees = pgTable('trees', {
+  id: text('id').primaryKey(),
+  ownerId: text('owner_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  name: text('name').notNull(),
+  speciesSlug: text('species_slug').notNull(),
+  stageNotes: text('stage_notes').notNull().default(''),
+  containerShape: text('container_shape').$type<'round' | 'rectangle' | 'oval'>(),
+  containerLengthCm: real('container_length_cm'),
+  containerWidthCm: real('container_width_cm'),
+  acquiredOn: date('acquired_on'),
+  collectedFromWild: boolean('collected_from_wild').notNull().default(false),
+  collectedOn: date('collected_on'),
+  notes: text('notes').notNull().default(''),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('trees_owner_idx').on(t.ownerId, t.createdAt)]);
+
+export const answers = pgTable('answers', {
+  id: text('id').primaryKey(),
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  treeId: text('tree_id').references(() => trees.id, { onDelete: 'set null' }),
+  speciesSlug: text('species_slug').notNull(),
+  speciesRevision: integer('species_revision').notNull(),
+  engineVersion: text('engine_version').notNull(),
+  action: text('action').notNull(),
+  stage: text('stage').notNull(),
+  season: text('season').notNull(),
+  observedOn: date('observed_on').notNull(),
+  input: jsonb('input').$type<Record<string, unknown>>().notNull(),
+  result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+  note: text('note').notNull().default(''),
+  followUp: text('follow_up').notNull().default(''),
+  visibility: text('visibility').$type<'private' | 'club'>().notNull().default('private'),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [
+  index('answers_user_created_idx').on(t.userId, t.createdAt.desc(), t.id.desc()),
+  index('answers_visibility_created_idx').on(t.visibility, t.createdAt.desc()),
+  index('answers_tree_idx').on(t.treeId),
+]);
+
+export const notes = pgTable('notes', {
+  id: serial('id').primaryKey(),
+  slug: text('slug').notNull().unique(),
+  title: text('title').notNull(),
+  meetingDate: date('meeting_date').notNull(),
+  body: text('body').notNull().default(''),
+  status: text('status').$type<'draft' | 'published'>().notNull().default('draft'),
+  authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  publishedAt: timestamp('published_at', { mode: 'date', withTimezone: true }),
+}, (t) => [index('notes_meeting_idx').on(t.meetingDate)]);
+
+// Which notes link which answers and species; rewritten whenever a note is saved.
+export const noteLinks = pgTable('note_links', {
+  noteId: integer('note_id').notNull().references(() => notes.id, { onDelete: 'cascade' }),
+  targetType: text('target_type').$type<'answer' | 'species'>().notNull(),
+  targetId: text('target_id').notNull(),
+}, (t) => [
+  primaryKey({ columns: [t.noteId, t.targetType, t.targetId] }),
+  index('note_links_target_idx').on(t.targetType, t.targetId),
+]);
+
+export const digestSends = pgTable('digest_sends', {
+  id: serial('id').primaryKey(),
+  noteId: integer('note_id').notNull().references(() => notes.id, { onDelete: 'cascade' }),
+  senderId: text('sender_id').references(() => users.id, { onDelete: 'set null' }),
+  recipients: integer('recipients').notNull(),
+  sentAt: timestamp('sent_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('digest_sends_note_idx').on(t.noteId)]);
+
+export const photos = pgTable('photos', {
+  id: text('id').primaryKey(),
+  ownerId: text('owner_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  answerId: text('answer_id').references(() => answers.id, { onDelete: 'cascade' }),
+  treeId: text('tree_id').references(() => trees.id, { onDelete: 'cascade' }),
+  storageKey: text('storage_key').notNull(),
+  thumbKey: text('thumb_key').notNull(),
+  mime: text('mime').notNull(),
+  width: integer('width').notNull(),
+  height: integer('height').notNull(),
+  bytes: integer('bytes').notNull(),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('photos_answer_idx').on(t.answerId), index('photos_tree_idx').on(t.treeId)]);

@@ -1,0 +1,109 @@
+import 'server-only';
+import type { AuthOptions } from 'next-auth';
+import type { Adapter } from 'next-auth/adapters';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import EmailProvider from 'next-auth/providers/email';
+import { DrizzleAdapter } from '@auth/drizzle-adapter';
+import { getDb } from '@/db/client';
+import { accounts, sessions, users, verificationTokens } from '@/db/schema';
+import { env } from '@/lib/env';
+import { signInSchema } from '@/lib/validation/auth';
+import { bumpTokenVersion, findAuthUserById, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
+import { clientIp, recordSignInFailure } from './rate-limit';
+import { sendSignInLink } from '@/lib/mail/templates';
+
+const adapterMethods = [
+  'createUser', 'getUser', 'getUserByEmail', 'getUserByAccount', 'updateUser', 'deleteUser', 'linkAccount',
+  'unlinkAccount', 'createSession', 'getSessionAndUser', 'updateSession', 'deleteSession',
+  'createVerificationToken', 'useVerificationToken',
+] as const;
+
+/** The database opens lazily (never during `next build`), so the adapter is built on first use. */
+function lazyAdapter(): Adapter {
+  let inner: Promise<Record<string, (...a: unknown[]) => unknown>> | undefined;
+  const load = () =>
+    (inner ??= getDb().then(
+      (db) => DrizzleAdapter(db, { usersTable: users, accountsTable: accounts, sessionsTable: sessions, verificationTokensTable: verificationTokens } as never) as never,
+    ));
+  return Object.fromEntries(
+    adapterMethods.map((m) => [m, async (...args: unknown[]) => (await load())[m](...args)]),
+  ) as unknown as Adapter;
+}
+
+export const SESSION_MAX_AGE = 30 * 24 * 60 * 60;
+export const EMAIL_LINK_MAX_AGE = 15 * 60;
+
+export const authOptions: AuthOptions = {
+  adapter: lazyAdapter(),
+  secret: env.NEXTAUTH_SECRET_VALUE,
+  session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE },
+  useSecureCookies: env.secureCookies,
+  pages: { signIn: '/sign-in', verifyRequest: '/verify', error: '/sign-in' },
+  providers: [
+    CredentialsProvider({
+      id: 'credentials',
+      name: 'E-mail and password',
+      credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+      async authorize(credentials, req) {
+        const parsed = signInSchema.safeParse(credentials);
+        const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
+        if (!parsed.success) {
+          recordSignInFailure(String(credentials?.email ?? '').toLowerCase(), ip);
+          return null;
+        }
+        const user = await verifyCredentials(parsed.data.email, parsed.data.password);
+        if (!user) {
+          recordSignInFailure(parsed.data.email, ip);
+          return null;
+        }
+        return { id: user.id, email: user.email, name: user.name };
+      },
+    }),
+    EmailProvider({
+      maxAge: EMAIL_LINK_MAX_AGE,
+      server: env.smtpUrl,
+      from: env.MAIL_FROM,
+      async sendVerificationRequest({ identifier, url }) {
+        // Links go only to existing, enabled accounts (sign-up is the password form); the page
+        // says the same thing either way, so this reveals nothing about who is a member.
+        if (await hasActiveAccount(identifier)) await sendSignInLink(identifier, url);
+      },
+    }),
+  ],
+  callbacks: {
+    async signIn({ user }) {
+      return user.email ? isEmailAllowedToSignIn(user.email) : false;
+    },
+    async jwt({ token, user }) {
+      // Re-read the account on every request: a role change, a disable or a sign-out elsewhere
+      // takes effect now, not when the 30-day token runs out.
+      const id = user?.id ?? (typeof token.uid === 'string' ? token.uid : undefined);
+      if (!id) return token;
+      const u = await findAuthUserById(id);
+      const current = u && !u.disabled && (user ? true : u.tokenVersion === token.tv);
+      if (!current) {
+        delete token.uid;
+        delete token.tv;
+        delete token.role;
+        return token;
+      }
+      token.uid = u.id;
+      token.role = u.role;
+      if (user) token.tv = u.tokenVersion;
+      return token;
+    },
+    async session({ session, token }) {
+      if (typeof token.uid === 'string') {
+        session.user = { ...session.user, id: token.uid, role: token.role as string };
+      } else {
+        delete (session as { user?: unknown }).user;
+      }
+      return session;
+    },
+  },
+  events: {
+    async signOut({ token }) {
+      if (token && typeof token.uid === 'string') await bumpTokenVersion(token.uid);
+    },
+  },
+};

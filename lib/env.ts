@@ -1,0 +1,52 @@
+import 'server-only';
+import path from 'node:path';
+import { z } from 'zod';
+
+// The one place that reads process.env; everything else imports `env`.
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PGLITE_DIR: z.string().min(1).default('./data/pglite'),
+  DATABASE_URL: z.string().url().optional(),
+  NEXTAUTH_URL: z.string().url().default('http://127.0.0.1:3000'),
+  NEXTAUTH_SECRET: z.string().min(16).optional(),
+  SMTP_URL: z.string().optional(),
+  SMTP_FAKE_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  MAIL_FAKE: z.enum(['0', '1']).default('0'),
+  MAIL_FROM: z.string().default('Candlewise <no-reply@candlewise.test>'),
+  UPLOADS_DIR: z.string().min(1).default('./data/uploads'),
+});
+
+// An empty variable means unset (scripts pass DATABASE_URL='' to mean PGlite).
+const parsed = schema.safeParse(Object.fromEntries(Object.entries(process.env).filter(([, v]) => v !== '')));
+if (!parsed.success) {
+  const fields = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ');
+  throw new Error(`Invalid environment: ${fields}`);
+}
+
+const raw = parsed.data;
+
+function secret(): string {
+  if (raw.NEXTAUTH_SECRET) return raw.NEXTAUTH_SECRET;
+  const building = process.env.NEXT_PHASE === 'phase-production-build';
+  if (raw.NODE_ENV === 'production' && !building && process.env.CANDLEWISE_ALLOW_DEV_SECRET !== '1') {
+    // Demo and test scripts set CANDLEWISE_ALLOW_DEV_SECRET; a real deployment must set a secret.
+    throw new Error('NEXTAUTH_SECRET must be set in production (at least 16 characters).');
+  }
+  return 'candlewise-development-secret-not-for-production';
+}
+
+export const env = {
+  ...raw,
+  PGLITE_DIR: path.resolve(raw.PGLITE_DIR),
+  UPLOADS_DIR: path.resolve(raw.UPLOADS_DIR),
+  get NEXTAUTH_SECRET_VALUE() {
+    return secret();
+  },
+  /** Mail goes to the local fake unless a real SMTP server is configured. */
+  get smtpUrl() {
+    return raw.SMTP_URL ?? `smtp://127.0.0.1:${raw.SMTP_FAKE_PORT}`;
+  },
+  get secureCookies() {
+    return raw.NEXTAUTH_URL.startsWith('https://');
+  },
+};

@@ -1,0 +1,87 @@
+import { remark } from 'remark';
+import remarkGfm from 'remark-gfm';
+import remarkRehype from 'remark-rehype';
+import rehypeSanitize, { defaultSchema } from 'rehype-sanitize';
+import rehypeStringify from 'rehype-stringify';
+import type { Root as HastRoot, Element } from 'hast';
+import { visit } from 'unist-util-visit';
+
+// The one Markdown pipeline of Candlewise (species care notes, meeting notes, digests):
+// remark → remark-gfm → remark-rehype → rehype-sanitize → rehype-stringify.
+// Raw HTML in the source is dropped (remark-rehype without allowDangerousHtml), and the
+// sanitizer (GitHub's schema) removes scripts, event handlers, iframes, styles and any URL
+// whose protocol is not http, https or mailto.
+
+const schema = {
+  ...defaultSchema,
+  protocols: { ...defaultSchema.protocols, href: ['http', 'https', 'mailto'], src: ['http', 'https'] },
+  tagNames: (defaultSchema.tagNames ?? []).filter((t) => !['input'].includes(t)),
+};
+
+/** Internal links the app recognises and can decorate (notes → answers and species). */
+export type InternalLink = { type: 'answer'; id: string } | { type: 'species'; slug: string };
+
+const answerPath = /^\/answers\/([A-Za-z0-9_-]{6,40})\/?$/;
+const speciesPath = /^\/species\/([a-z]+(?:-[a-z]+)+)\/?$/;
+
+export function parseInternalLink(href: string): InternalLink | null {
+  let path = href;
+  try {
+    const u = new URL(href, 'http://candlewise.local');
+    if (u.origin !== 'http://candlewise.local' && !/^https?:/.test(href)) return null;
+    path = u.origin === 'http://candlewise.local' ? u.pathname : '';
+  } catch {
+    return null;
+  }
+  const a = answerPath.exec(path);
+  if (a) return { type: 'answer', id: a[1] };
+  const s = speciesPath.exec(path);
+  if (s) return { type: 'species', slug: s[1] };
+  return null;
+}
+
+function markInternalLinks() {
+  return (tree: HastRoot) => {
+    visit(tree, 'element', (node: Element) => {
+      if (node.tagName !== 'a' || typeof node.properties?.href !== 'string') return;
+      const link = parseInternalLink(node.properties.href);
+      if (link) {
+        // data-* attributes survive the sanitizer only through this class, which the schema allows.
+        node.properties.className = ['internal-link', `internal-${link.type}`];
+      }
+    });
+  };
+}
+
+const processor = remark()
+  .use(remarkGfm)
+  .use(remarkRehype)
+  .use(rehypeSanitize, schema)
+  .use(markInternalLinks)
+  .use(rehypeStringify);
+
+export async function renderMarkdown(source: string): Promise<string> {
+  return String(await processor.process(source));
+}
+
+export function renderMarkdownSync(source: string): string {
+  return String(processor.processSync(source));
+}
+
+/** Every internal link in a Markdown source, deduplicated, in order of first appearance. */
+export function extractInternalLinks(source: string): InternalLink[] {
+  const tree = remark().use(remarkGfm).parse(source);
+  const seen = new Set<string>();
+  const out: InternalLink[] = [];
+  visit(tree, (node) => {
+    if (node.type !== 'link' && node.type !== 'definition') return;
+    const link = parseInternalLink((node as { url: string }).url);
+    if (!link) return;
+    const key = link.type === 'answer' ? `a:${link.id}` : `s:${link.slug}`;
+    if (!seen.has(key)) {
+      seen.add(key);
+      out.push(link);
+    }
+  });
+  return out;
+}

@@ -1,0 +1,17 @@
+// Open the database at start (migrations apply here, so the first request does not pay for
+// them) and, in development, demo and tests, start the local SMTP fake.
+export async function startServer() {
+  const { getDb } = await import('@/db/client');
+  try {
+    await getDb();
+  } catch (e) {
+    console.error(`[candlewise] ${(e as Error).message}`);
+    process.exit(1);
+  }
+  if (process.env.MAIL_FAKE === '1') {
+    const { startFakeSmtp } = await import('@/lib/mail/fake-smtp');
+    const port = Number(process.env.SMTP_FAKE_PORT ?? 2525);
+    await startFakeSmtp(port);
+    console.log(`[candlewise] mail fake listening on smtp://127.0.0.1:${port}`);
+  }
+}

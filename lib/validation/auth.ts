@@ -1,0 +1,44 @@
+import { z } from 'zod';
+import { isCommonPassword } from '@/lib/auth/common-passwords';
+
+export const emailSchema = z
+  .string({ error: 'Enter your e-mail address.' })
+  .trim()
+  .toLowerCase()
+  .pipe(z.email({ error: 'Enter a valid e-mail address.' }).max(254));
+
+export const passwordSchema = z
+  .string({ error: 'Enter a password.' })
+  .min(8, { error: 'Use at least 8 characters.' })
+  .max(128, { error: 'Use at most 128 characters.' })
+  .refine((p) => !isCommonPassword(p), { error: 'That password is on every list of common passwords: choose another.' });
+
+export const signUpSchema = z.object({
+  name: z.string().trim().min(1, { error: 'Tell us your name.' }).max(80),
+  email: emailSchema,
+  password: passwordSchema,
+});
+export type SignUpInput = z.infer<typeof signUpSchema>;
+
+export const signInSchema = z.object({
+  email: emailSchema,
+  password: z.string().min(1).max(128),
+});
+
+export const roleSchema = z.enum(['member', 'editor', 'librarian', 'admin']);
+
+export const userPatchSchema = z
+  .object({ role: roleSchema.optional(), disabled: z.boolean().optional() })
+  .refine((v) => v.role !== undefined || v.disabled !== undefined, { error: 'Change the role or the disabled flag.' });
+
+export const profilePatchSchema = z.object({
+  name: z.string().trim().min(1).max(80).optional(),
+  digestOptIn: z.boolean().optional(),
+});
+
+export const settingsSchema = z.object({
+  clubName: z.string().trim().min(1, { error: 'Give the club a name.' }).max(120),
+  hemisphere: z.enum(['north', 'south']),
+  defaultLatitude: z.coerce.number().min(-90, { error: 'Latitude runs from -90 to 90.' }).max(90, { error: 'Latitude runs from -90 to 90.' }),
+});
+export type SettingsInput = z.infer<typeof settingsSchema>;

@@ -1,0 +1,13 @@
+#!/usr/bin/env bash
+# The whole test pass: types, build, unit, integration on PGlite, the same integration suite
+# on a real PostgreSQL server, then the browser tests.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+export NEXT_TELEMETRY_DISABLED=1
+
+echo "── typecheck";            npm run -s typecheck
+echo "── build";                npm run -s build
+echo "── unit";                 npm run -s test:unit
+echo "── integration (PGlite)"; npm run -s test:integration
+echo "── integration (PostgreSQL)"; bash scripts/with-postgres.sh npm run -s test:integration
+echo "── e2e (Chromium)";       npm run -s test:e2e

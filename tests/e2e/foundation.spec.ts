@@ -1,0 +1,77 @@
+import { expect, test } from '@playwright/test';
+import { SignInPage, screenshotPath, signOut } from './pages/auth';
+
+test('home page offers the two doors, on a desktop and at 360 px', async ({ page }) => {
+  await page.goto('/');
+  await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+  await expect(page.getByTestId('door-ask')).toBeVisible();
+  await expect(page.getByTestId('door-species')).toBeVisible();
+  await page.screenshot({ path: screenshotPath('home-desktop'), fullPage: true });
+  await page.setViewportSize({ width: 360, height: 740 });
+  await page.reload();
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+  expect(overflow).toBeLessThanOrEqual(0);
+  await page.screenshot({ path: screenshotPath('home-360'), fullPage: true });
+});
+
+test('a new grower signs up and lands signed in as a member', async ({ page }) => {
+  await page.goto('/sign-up');
+  await page.getByLabel('Your name').fill('Juniper Lake');
+  await page.getByLabel('E-mail').fill(`juniper-${Date.now()}@candlewise.test`);
+  await page.getByLabel('Password').fill('password123');
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await expect(page.getByText('common passwords')).toBeVisible();
+  await page.getByLabel('Password').fill('willow-by-the-weir');
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await expect(page.getByTestId('current-role')).toHaveText('Member');
+  await expect(page.getByTestId('main-nav').getByRole('link', { name: 'Admin' })).toHaveCount(0);
+});
+
+test('each demo role sees its navigation; only the admin reaches the admin page', async ({ page }) => {
+  const signIn = new SignInPage(page);
+  for (const [email, label] of [
+    ['member@candlewise.test', 'Member'],
+    ['editor@candlewise.test', 'Species editor'],
+    ['librarian@candlewise.test', 'Librarian'],
+  ] as const) {
+    await signIn.withPassword(email);
+    await expect(page.getByTestId('current-role')).toHaveText(label);
+    await expect(page.getByTestId('main-nav').getByRole('link', { name: 'Admin' })).toHaveCount(0);
+    const res = await page.goto('/admin');
+    expect(res?.status()).toBe(403);
+    await expect(page.getByTestId('forbidden')).toBeVisible();
+    await signOut(page);
+  }
+  await signIn.withPassword('admin@candlewise.test');
+  for (const name of ['Species', 'Ask', 'Answers', 'Trees', 'Notes', 'Admin']) {
+    await expect(page.getByTestId('main-nav').getByRole('link', { name })).toBeVisible();
+  }
+  await page.getByTestId('main-nav').getByRole('link', { name: 'Admin' }).click();
+  await expect(page.getByTestId('users-table')).toBeVisible();
+  await page.getByLabel('Search by name or e-mail').fill('librarian');
+  await expect(page.getByTestId('users-table').locator('tbody tr')).toHaveCount(1);
+  await page.screenshot({ path: screenshotPath('admin'), fullPage: true });
+});
+
+test('signing in with the e-mail link read from the outbox', async ({ page, browser }) => {
+  const signIn = new SignInPage(page);
+  await signIn.askForLink('editor@candlewise.test');
+  // The admin reads the outbox in another browser context.
+  const adminCtx = await browser.newContext();
+  const admin = await adminCtx.newPage();
+  await new SignInPage(admin).withPassword('admin@candlewise.test');
+  await admin.goto('/admin/outbox');
+  const message = admin.getByTestId('outbox-message').filter({ hasText: 'editor@candlewise.test' }).first();
+  await expect(message).toBeVisible();
+  await admin.screenshot({ path: screenshotPath('outbox'), fullPage: true });
+  const text = await message.getByTestId('outbox-text').innerText();
+  const link = text.match(/https?:\/\/\S+/)![0];
+  await adminCtx.close();
+
+  await page.goto(link);
+  await expect(page.getByTestId('current-role')).toHaveText('Species editor');
+  // The same link does not work twice.
+  await signOut(page);
+  await page.goto(link);
+  await expect(page.getByRole('alert')).toContainText('used already or has expired');
+});

@@ -1,0 +1,9 @@
+import { startApp } from '../support/app-server';
+
+export default async function globalSetup() {
+  const app = await startApp();
+  process.env.E2E_BASE_URL = app.url;
+  return async () => {
+    await app.stop();
+  };
+}

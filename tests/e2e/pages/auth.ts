@@ -1,0 +1,37 @@
+import { expect, type Page } from '@playwright/test';
+
+export const DEMO_PASSWORD = 'candlewise-demo';
+
+export class SignInPage {
+  constructor(readonly page: Page) {}
+
+  async open() {
+    await this.page.goto('/sign-in');
+  }
+
+  async withPassword(email: string, password = DEMO_PASSWORD) {
+    await this.open();
+    const form = this.page.getByTestId('password-form');
+    await form.getByLabel('E-mail').fill(email);
+    await form.getByLabel('Password').fill(password);
+    await form.getByRole('button', { name: 'Sign in' }).click();
+    await expect(this.page.getByTestId('current-user')).toBeVisible();
+  }
+
+  async askForLink(email: string) {
+    await this.open();
+    const form = this.page.getByTestId('link-form');
+    await form.getByLabel('E-mail').fill(email);
+    await form.getByRole('button', { name: 'E-mail me a link' }).click();
+    await expect(form.getByText('the link is on its way')).toBeVisible();
+  }
+}
+
+export async function signOut(page: Page) {
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+}
+
+export function screenshotPath(name: string) {
+  return `test-results/screens/${name}.png`;
+}

@@ -1,0 +1,91 @@
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+export interface RunningApp {
+  url: string;
+  port: number;
+  smtpPort: number;
+  dataDir: string;
+  process: ChildProcess;
+  log: () => string;
+  stop: () => Promise<void>;
+}
+
+const root = path.resolve(__dirname, '../..');
+
+/** Seed a fresh database (PGlite directory, or DATABASE_URL when given) and start the built app. */
+export async function startApp(opts: { databaseUrl?: string; env?: Record<string, string> } = {}): Promise<RunningApp> {
+  if (!fs.existsSync(path.join(root, '.next', 'BUILD_ID'))) {
+    throw new Error('No build found: run `npm run build` before the integration and e2e tests.');
+  }
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'candlewise-test-'));
+  const port = await freePort();
+  const smtpPort = await freePort();
+  const env: Record<string, string> = {
+    ...(process.env as Record<string, string>),
+    NODE_ENV: 'production',
+    NEXT_TELEMETRY_DISABLED: '1',
+    PGLITE_DIR: path.join(dataDir, 'pglite'),
+    UPLOADS_DIR: path.join(dataDir, 'uploads'),
+    DATABASE_URL: opts.databaseUrl ?? '',
+    PORT: String(port),
+    NEXTAUTH_URL: `http://127.0.0.1:${port}`,
+    NEXTAUTH_SECRET: 'integration-test-secret-0123456789',
+    SMTP_FAKE_PORT: String(smtpPort),
+    MAIL_FAKE: '1',
+    SMTP_URL: '',
+    ...opts.env,
+  };
+  const seed = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['--conditions=react-server', 'scripts/db-seed.ts'], { cwd: root, env: env as NodeJS.ProcessEnv, encoding: 'utf8' });
+  if (seed.status !== 0) throw new Error(`seed failed: ${seed.stderr}${seed.stdout}`);
+
+  let output = '';
+  const child = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(port)], { cwd: root, env: env as NodeJS.ProcessEnv, stdio: ['ignore', 'pipe', 'pipe'] });
+  child.stdout!.on('data', (d) => (output += d));
+  child.stderr!.on('data', (d) => (output += d));
+  const url = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited early:\n${output}`);
+    try {
+      const res = await fetch(`${url}/api/health`);
+      if (res.ok && output.includes('mail fake listening')) break;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() > deadline) throw new Error(`server did not start:\n${output}`);
+    await new Promise((r) => setTimeout(r, 150));
+  }
+  return {
+    url,
+    port,
+    smtpPort,
+    dataDir,
+    process: child,
+    log: () => output,
+    stop: async () => {
+      if (child.exitCode === null) {
+        const exited = new Promise((r) => child.once('exit', r));
+        child.kill('SIGTERM');
+        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+        if (child.exitCode === null) child.kill('SIGKILL');
+      }
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}

@@ -1,0 +1,38 @@
+import { defineConfig } from 'vitest/config';
+import path from 'node:path';
+
+const alias = {
+  '@': path.resolve(__dirname),
+  'server-only': path.resolve(__dirname, 'tests/support/empty.ts'),
+};
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.{ts,tsx}'],
+          environment: 'node',
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'integration',
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/integration/global-setup.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          // One built server is shared by every file: run files one after another.
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
