@@ -22,7 +22,7 @@ fi
 cleanup() { "${as_pg[@]}" "$bin/pg_ctl" -D "$work/data" -m fast -w stop >/dev/null 2>&1 || true; rm -rf "$work"; }
 trap cleanup EXIT
 
-"$bin/createdb" -h 127.0.0.1 -p "$port" -U candlewise candlewise_test
-export TEST_DATABASE_URL="postgres://candlewise@127.0.0.1:$port/candlewise_test"
+# The throwaway cluster's own `postgres` database is the test database.
+export TEST_DATABASE_URL="postgres://candlewise@127.0.0.1:$port/postgres"
 echo "PostgreSQL $("$bin/pg_ctl" --version | awk '{print $3}') on 127.0.0.1:$port"
 "$@"

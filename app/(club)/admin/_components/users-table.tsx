@@ -47,6 +47,8 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
       col.accessor('disabled', {
         header: 'Status',
         cell: (c) => (
+          <span className="flex items-center gap-3">
+          <span className={c.getValue() ? 'text-clay-700' : 'text-moss-800'}>{c.getValue() ? 'Disabled' : 'Active'}</span>
           <button
             type="button"
             className={c.getValue() ? 'btn-secondary' : 'btn-danger'}
@@ -56,6 +58,7 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
           >
             {c.getValue() ? 'Enable' : 'Disable'}
           </button>
+          </span>
         ),
       }),
       col.accessor('createdAt', { header: 'Joined', cell: (c) => c.getValue().slice(0, 10) }),
