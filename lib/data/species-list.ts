@@ -149,3 +149,15 @@ export async function listSpecies(viewer: SessionUser | null, query: SpeciesList
   };
 }
 
+
+/** Every species the viewer may see, in name order (the /species table filters these as you type). */
+export async function listAllSpecies(viewer: SessionUser | null): Promise<SpeciesListItem[]> {
+  const out: SpeciesListItem[] = [];
+  let cursor: string | undefined;
+  do {
+    const page = await listSpecies(viewer, { limit: 100, cursor });
+    out.push(...page.items);
+    cursor = page.nextCursor ?? undefined;
+  } while (cursor);
+  return out;
+}
