@@ -116,8 +116,15 @@ export default async function HistoryPage({ params, searchParams }: Props) {
             </p>
             <pre className="overflow-x-auto rounded-lg border border-stone-200 bg-stone-50 p-3 text-xs leading-relaxed" data-testid="diff">
               {diff.map((part, i) =>
-                part.value.replace(/\n$/, '').split('\n').map((line, j) => {
-                  if (!part.added && !part.removed) return <span key={`${i}-${j}`} className="block text-stone-600">  {line}</span>;
+                part.value.replace(/\n$/, '').split('\n').map((line, j, lines) => {
+                  if (!part.added && !part.removed) {
+                    // Long unchanged runs fold to their first and last lines.
+                    const keep = 2;
+                    if (lines.length > keep * 2 + 2 && j >= keep && j < lines.length - keep) {
+                      return j === keep ? <span key={`${i}-${j}`} className="block italic text-stone-500">  … {lines.length - keep * 2} unchanged lines</span> : null;
+                    }
+                    return <span key={`${i}-${j}`} className="block text-stone-600">  {line}</span>;
+                  }
                   return (
                     <span key={`${i}-${j}`} className={`block ${part.added ? 'bg-moss-100 text-moss-900' : 'bg-clay-100 text-clay-700'}`} data-testid={part.added ? 'diff-added' : 'diff-removed'}>
                       <span className="sr-only">{part.added ? 'Added: ' : 'Removed: '}</span>
