@@ -1,0 +1,35 @@
+import 'server-only';
+import { getDb } from '@/db/client';
+import { clubSettings } from '@/db/schema';
+import { AppError } from '@/lib/errors';
+import type { SessionUser } from '@/lib/auth/session';
+import type { SettingsInput } from '@/lib/validation/auth';
+
+export interface ClubSettingsDto {
+  clubName: string;
+  hemisphere: 'north' | 'south';
+  defaultLatitude: number;
+}
+
+const DEFAULTS: ClubSettingsDto = { clubName: 'Our bonsai club', hemisphere: 'north', defaultLatitude: 45 };
+
+/** Club settings are readable by everyone (the wizard uses them, signed in or not). */
+export async function getClubSettings(): Promise<ClubSettingsDto> {
+  const db = await getDb();
+  const [row] = await db
+    .select({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude })
+    .from(clubSettings)
+    .limit(1);
+  return row ?? DEFAULTS;
+}
+
+export async function updateClubSettings(actor: SessionUser, input: SettingsInput): Promise<ClubSettingsDto> {
+  if (actor.role !== 'admin') throw new AppError('forbidden:settings', 'Only administrators change club settings.');
+  const db = await getDb();
+  const [row] = await db
+    .insert(clubSettings)
+    .values({ id: 1, ...input, updatedAt: new Date() })
+    .onConflictDoUpdate({ target: clubSettings.id, set: { ...input, updatedAt: new Date() } })
+    .returning({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude });
+  return row;
+}

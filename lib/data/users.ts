@@ -1,0 +1,150 @@
+import 'server-only';
+import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
+import { getDb } from '@/db/client';
+import { users, type Role } from '@/db/schema';
+import { AppError } from '@/lib/errors';
+import { hashPassword, verifyPassword } from '@/lib/auth/password';
+import type { SignUpInput } from '@/lib/validation/auth';
+import type { SessionUser } from '@/lib/auth/session';
+
+export interface UserDto {
+  id: string;
+  name: string | null;
+  email: string;
+  role: Role;
+  disabled: boolean;
+  digestOptIn: boolean;
+  createdAt: string;
+}
+
+const dtoColumns = {
+  id: users.id,
+  name: users.name,
+  email: users.email,
+  role: users.role,
+  disabled: users.disabled,
+  digestOptIn: users.digestOptIn,
+  createdAt: users.createdAt,
+};
+
+const toDto = (r: { createdAt: Date } & Omit<UserDto, 'createdAt'>): UserDto => ({ ...r, createdAt: r.createdAt.toISOString() });
+
+export async function createMember(input: SignUpInput): Promise<UserDto> {
+  const db = await getDb();
+  const passwordHash = await hashPassword(input.password);
+  const rows = await db
+    .insert(users)
+    .values({ name: input.name, email: input.email, passwordHash, role: 'member' })
+    .onConflictDoNothing({ target: users.email })
+    .returning(dtoColumns);
+  if (!rows[0]) throw new AppError('conflict:email', 'An account with this e-mail already exists. Sign in instead.', { email: ['Already registered'] });
+  return toDto(rows[0]);
+}
+
+/** Check a password sign-in. Returns null for any failure, without saying which part was wrong. */
+export async function verifyCredentials(email: string, password: string) {
+  const db = await getDb();
+  const [u] = await db
+    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion, passwordHash: users.passwordHash })
+    .from(users)
+    .where(eq(users.email, email))
+    .limit(1);
+  const ok = await verifyPassword(password, u?.passwordHash);
+  if (!ok || !u || u.disabled) return null;
+  return { id: u.id, name: u.name, email: u.email, role: u.role, tokenVersion: u.tokenVersion };
+}
+
+/** The user behind a token, if the token is still current: not disabled, same token version. */
+export async function findSessionUser(id: string, tokenVersion: number): Promise<SessionUser | null> {
+  const db = await getDb();
+  const [u] = await db
+    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion })
+    .from(users)
+    .where(eq(users.id, id))
+    .limit(1);
+  if (!u || u.disabled || u.tokenVersion !== tokenVersion) return null;
+  return { id: u.id, name: u.name ?? u.email.split('@')[0], email: u.email, role: u.role, tokenVersion: u.tokenVersion };
+}
+
+export async function findAuthUserById(id: string) {
+  const db = await getDb();
+  const [u] = await db
+    .select({ id: users.id, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion })
+    .from(users)
+    .where(eq(users.id, id))
+    .limit(1);
+  return u ?? null;
+}
+
+export async function isEmailAllowedToSignIn(email: string) {
+  const db = await getDb();
+  const [u] = await db.select({ disabled: users.disabled }).from(users).where(eq(users.email, email.toLowerCase())).limit(1);
+  return !u || !u.disabled;
+}
+
+export async function hasActiveAccount(email: string) {
+  const db = await getDb();
+  const [u] = await db.select({ disabled: users.disabled }).from(users).where(eq(users.email, email.toLowerCase())).limit(1);
+  return !!u && !u.disabled;
+}
+
+/** Ends every session of the user (sign-out, role change, disable). */
+export async function bumpTokenVersion(id: string) {
+  const db = await getDb();
+  await db.update(users).set({ tokenVersion: sql`${users.tokenVersion} + 1` }).where(eq(users.id, id));
+}
+
+const sortable = { name: users.name, email: users.email, role: users.role, createdAt: users.createdAt } as const;
+export type UserSort = keyof typeof sortable;
+
+export async function listUsers(actor: SessionUser, opts: { q?: string; sort?: UserSort; dir?: 'asc' | 'desc' } = {}) {
+  requireAdmin(actor);
+  const db = await getDb();
+  const q = opts.q?.trim();
+  const where = q ? or(ilike(users.email, `%${escapeLike(q)}%`), ilike(users.name, `%${escapeLike(q)}%`)) : undefined;
+  const col = sortable[opts.sort ?? 'createdAt'];
+  const rows = await db
+    .select(dtoColumns)
+    .from(users)
+    .where(where)
+    .orderBy(opts.dir === 'desc' ? desc(col) : asc(col), asc(users.id))
+    .limit(500);
+  return rows.map(toDto);
+}
+
+export async function updateUserByAdmin(actor: SessionUser, id: string, patch: { role?: Role; disabled?: boolean }) {
+  requireAdmin(actor);
+  if (id === actor.id && (patch.disabled === true || (patch.role && patch.role !== 'admin'))) {
+    throw new AppError('conflict:self', 'You cannot demote or disable your own account; ask another administrator.');
+  }
+  const db = await getDb();
+  const rows = await db
+    .update(users)
+    .set({ ...patch, tokenVersion: sql`${users.tokenVersion} + 1` })
+    .where(eq(users.id, id))
+    .returning(dtoColumns);
+  if (!rows[0]) throw new AppError('not_found:user');
+  return toDto(rows[0]);
+}
+
+export async function getProfile(actor: SessionUser): Promise<UserDto> {
+  const db = await getDb();
+  const [u] = await db.select(dtoColumns).from(users).where(eq(users.id, actor.id)).limit(1);
+  if (!u) throw new AppError('not_found:user');
+  return toDto(u);
+}
+
+export async function updateProfile(actor: SessionUser, patch: { name?: string; digestOptIn?: boolean }) {
+  const db = await getDb();
+  const [u] = await db.update(users).set(patch).where(and(eq(users.id, actor.id))).returning(dtoColumns);
+  if (!u) throw new AppError('not_found:user');
+  return toDto(u);
+}
+
+function requireAdmin(actor: SessionUser) {
+  if (actor.role !== 'admin') throw new AppError('forbidden:users', 'Only administrators manage users.');
+}
+
+export function escapeLike(s: string) {
+  return s.replace(/[\\%_]/g, (c) => `\\${c}`);
+}
