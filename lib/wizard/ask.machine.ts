@@ -23,9 +23,9 @@ export interface AskAnswers {
   container?: ContainerInput;
 }
 
-/** A question the answers so far make irrelevant is skipped. */
+/** A question the answers so far make irrelevant is skipped (position: only for a refinement branch). */
 export function isRelevant(step: AskStep, a: AskAnswers): boolean {
-  if (step === 'position') return a.branching === 'tertiary';
+  if (step === 'position') return a.branching === undefined || a.branching === 'tertiary';
   return true;
 }
 

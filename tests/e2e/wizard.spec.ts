@@ -103,6 +103,12 @@ test('a link pre-fills species and pot; a development branch skips the outline q
   await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Prune the tip');
   await expect(page.getByTestId('feeding')).toContainText('10–12 pellets');
   await expect(page.getByRole('link', { name: 'Sign in to save it' })).toBeVisible();
+  await page.setViewportSize({ width: 360, height: 740 });
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+  await page.screenshot({ path: screenshotPath('wizard-answer-360'), fullPage: true });
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await page.screenshot({ path: screenshotPath('wizard-answer-desktop'), fullPage: true });
+  await page.setViewportSize({ width: 390, height: 844 });
   await page.getByRole('button', { name: 'Change my answers' }).click();
   await ask.expectStep('when');
   await page.getByRole('button', { name: 'Back' }).click();
