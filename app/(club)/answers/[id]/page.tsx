@@ -14,6 +14,14 @@ const inputLabels: [string, string][] = [
   ['recentlyCollected', 'Recently collected'], ['backBuds', 'Back buds'], ['hemisphere', 'Hemisphere'], ['latitude', 'Latitude'],
 ];
 
+const valueLabels: Record<string, string> = {
+  primary: 'primary only', secondary: 'primary and secondary', tertiary: 'primary, secondary and tertiary',
+  'dormant-bud': 'dormant bud', 'candle-extending': 'candle extending', 'needles-opening': 'needles opening', 'needles-hardened': 'needles hardened',
+  'beyond-silhouette': 'pushing out beyond it', 'at-silhouette': 'within the outline', interior: 'deep inside',
+  north: 'northern', south: 'southern', true: 'yes', false: 'no',
+};
+const show = (v: unknown) => valueLabels[String(v)] ?? String(v);
+
 export default async function AnswerPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requirePageUser(`/answers/${id}`);
@@ -34,7 +42,7 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
         <h2 id="inputs-h" className="text-lg">What was observed</h2>
         <dl className="mt-2 grid grid-cols-[10rem_1fr] gap-1">
           {inputLabels.filter(([k]) => input[k] !== undefined).map(([k, label]) => (
-            <div key={k} className="contents"><dt className="text-stone-700">{label}</dt><dd>{String(input[k] === true ? 'yes' : input[k] === false ? 'no' : input[k])}</dd></div>
+            <div key={k} className="contents"><dt className="text-stone-700">{label}</dt><dd>{show(input[k])}</dd></div>
           ))}
           {c && <div className="contents"><dt className="text-stone-700">Pot</dt><dd>{c.shape}, {c.lengthCm}{c.widthCm ? ` × ${c.widthCm}` : ''} cm</dd></div>}
           <div className="contents"><dt className="text-stone-700">Rules version</dt><dd>{a.engineVersion}, species revision {a.speciesRevision}</dd></div>
