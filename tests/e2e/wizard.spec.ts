@@ -109,6 +109,19 @@ test('a link pre-fills species and pot; a development branch skips the outline q
   await page.setViewportSize({ width: 1280, height: 900 });
   await page.screenshot({ path: screenshotPath('wizard-answer-desktop'), fullPage: true });
   await page.setViewportSize({ width: 390, height: 844 });
+
+  // Signing in to save comes back to the same answer.
+  await page.getByRole('link', { name: 'Sign in to save it' }).click();
+  const form = page.getByTestId('password-form');
+  await form.getByLabel('E-mail').fill('member2@candlewise.test');
+  await form.getByLabel('Password').fill('candlewise-demo');
+  await form.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/ask\?step=answer/);
+  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Prune the tip');
+  await page.getByLabel('Who can see it').selectOption('club');
+  await page.getByRole('button', { name: 'Save answer' }).click();
+  await expect(page.getByTestId('saved')).toBeVisible();
+
   await page.getByRole('button', { name: 'Change my answers' }).click();
   await ask.expectStep('when');
   await page.getByRole('button', { name: 'Back' }).click();

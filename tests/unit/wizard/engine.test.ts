@@ -317,7 +317,7 @@ describe('dueNow for a tree', () => {
     expect(winter).toMatchObject({ season: 'winter', action: 'wait', feedNow: false });
     const bpJune = dueNow({ species: blackPine, stage: 'refinement', date: '2027-06-20', hemisphere: 'north' });
     expect(bpJune.action).toBe('decandle');
-    const dev = dueNow({ species: scots, stage: 'development', date: '2027-08-20', hemisphere: 'north' });
+    const dev = dueNow({ species: scots, stageHint: 'development', date: '2027-08-20', hemisphere: 'north' });
     expect(dev.action).toBe('prune');
     const rec = dueNow({ species: scots, stage: 'recovery', date: '2027-05-20', hemisphere: 'north' });
     expect(rec.action).toBe('let-grow');
