@@ -43,6 +43,9 @@ describe('refinement: pinching a single-flush pine', () => {
     );
     expect(r.headline).toMatch(/leave at least 2 pairs of needles/);
     expect(r.watch.join(' ')).toMatch(/two to three weeks/);
+    // the deciding rules come before the asides
+    expect(r.reasons.map((x) => x.rule).slice(0, 2)).toEqual(['stage.refinement', 'refine.pinch-soft-candle']);
+    expect(r.reasons.at(-1)!.rule).toBe('flush.single-never-decandle');
   });
 
   it('is too late once the needles are opening', () => {

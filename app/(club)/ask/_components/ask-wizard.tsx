@@ -79,11 +79,11 @@ export function AskWizard(props: AskWizardProps) {
 }
 
 function Wizard({ boot, species, club, signedIn, treeName }: AskWizardProps & { boot: { answers: AskAnswers; treeId?: string; step?: AskStep } }) {
-  const [snap, send] = useMachine(machine, { input: boot });
+  const [snap, send, actorRef] = useMachine(machine, { input: boot });
   const params = useSearchParams();
   const { step, answers, result, error } = snap.context;
   const urlStep = params.get('step');
-  const lastPushed = useRef<string | null>(urlStep);
+  const firstSync = useRef(true);
 
   useEffect(() => {
     sessionStorage.setItem(STORAGE_KEY, JSON.stringify({ answers, treeId: snap.context.treeId }));
@@ -93,17 +93,27 @@ function Wizard({ boot, species, club, signedIn, treeName }: AskWizardProps & { 
   useEffect(() => {
     if (snap.matches('evaluating') || snap.matches('saving')) return;
     const current = new URLSearchParams(window.location.search);
+    const first = firstSync.current;
+    firstSync.current = false;
     if (current.get('step') === step) return;
     current.set('step', step);
     const url = `${window.location.pathname}?${current.toString()}`;
-    if (lastPushed.current === null) window.history.replaceState(null, '', url);
+    // The opening step replaces the entry it was loaded at; every later step is a new entry.
+    if (first) window.history.replaceState(null, '', url);
     else window.history.pushState(null, '', url);
-    lastPushed.current = step;
   }, [step, snap]);
 
   // URL → machine: the back and forward buttons change ?step=.
   useEffect(() => {
-    if (urlStep && urlStep !== step && askSteps.includes(urlStep as AskStep)) send({ type: 'GOTO', step: urlStep as AskStep });
+    if (!urlStep || urlStep === step) return;
+    if (askSteps.includes(urlStep as AskStep)) send({ type: 'GOTO', step: urlStep as AskStep });
+    // A step that cannot be opened yet (or a made-up one): show where the machine actually is.
+    const now = actorRef.getSnapshot();
+    if (!now.matches('evaluating') && now.context.step !== urlStep) {
+      const current = new URLSearchParams(window.location.search);
+      current.set('step', now.context.step);
+      window.history.replaceState(null, '', `${window.location.pathname}?${current.toString()}`);
+    }
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [urlStep]);
 
