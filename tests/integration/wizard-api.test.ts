@@ -186,6 +186,22 @@ describe('IDOR: another member cannot read or change a private answer', () => {
     expect((await other.json(path, 'GET')).status).toBe(404);
   });
 
+  it('lists answers shared with the club for any member, never private ones', async () => {
+    const owner = await signedIn(base, 'member@candlewise.test');
+    const librarian = await signedIn(base, 'librarian@candlewise.test');
+    const shared = (await owner.json('/api/answers', 'POST', { ...body, visibility: 'club', note: 'for the meeting' })).body;
+    const priv = (await owner.json('/api/answers', 'POST', body)).body;
+    const list = await librarian.json('/api/answers?scope=club&limit=100', 'GET');
+    expect(list.status).toBe(200);
+    const ids = list.body.items.map((x: { id: string }) => x.id);
+    expect(ids).toContain(shared.id);
+    expect(ids).not.toContain(priv.id);
+    expect(list.body.items.every((x: { visibility: string }) => x.visibility === 'club')).toBe(true);
+    expect(list.body.items.find((x: { id: string }) => x.id === shared.id).askerName).toBe('Wren Alder');
+    expect((await anon().json('/api/answers?scope=club', 'GET')).status).toBe(401);
+    expect((await librarian.json('/api/answers?scope=everyone', 'GET')).status).toBe(400);
+  });
+
   it('404s ids that do not exist or are malformed', async () => {
     const m = await signedIn(base, 'member@candlewise.test');
     expect((await m.json('/api/answers/AAAAAAAAAAAA', 'GET')).status).toBe(404);
