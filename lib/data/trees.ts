@@ -6,6 +6,7 @@ import { AppError } from '@/lib/errors';
 import { newPublicId } from '@/lib/ids';
 import { parseWith } from '@/lib/http/route';
 import type { SessionUser } from '@/lib/auth/session';
+import { listWizardSpeciesNames } from '@/lib/data/species';
 import { treeInputSchema, type TreeInput, type TreePatch } from '@/lib/validation/trees';
 
 // Trees are private to the member who keeps them: every query is scoped by owner, so another
@@ -192,15 +193,8 @@ export async function listTreeAnswers(actor: SessionUser, treeId: string): Promi
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
-/** Published species for the tree form's select, by botanical name. */
+/** Published species for the tree form's select, by botanical name (from the species module). */
 export async function listSpeciesOptions(): Promise<SpeciesOptionDto[]> {
-  const db = await getDb();
-  const rows = await db
-    .select({ slug: species.slug, botanicalName: species.botanicalName, commonNames: species.commonNames })
-    .from(species)
-    .where(isNotNull(species.publishedRevision))
-    .orderBy(asc(species.botanicalName))
-    .limit(1000);
+  const rows = await listWizardSpeciesNames();
   return rows.map((r) => ({ slug: r.slug, label: r.commonNames[0] ? `${r.botanicalName} — ${r.commonNames[0]}` : r.botanicalName }));
 }
-
