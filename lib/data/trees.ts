@@ -6,6 +6,7 @@ import { AppError } from '@/lib/errors';
 import { newPublicId } from '@/lib/ids';
 import { parseWith } from '@/lib/http/route';
 import type { SessionUser } from '@/lib/auth/session';
+import { photoFilesOfTree, removeStoredFiles } from '@/lib/data/photos';
 import { listWizardSpeciesNames } from '@/lib/data/species';
 import { treeInputSchema, type TreeInput, type TreePatch } from '@/lib/validation/trees';
 
@@ -160,14 +161,16 @@ export async function updateTree(actor: SessionUser, id: string, patch: TreePatc
   return getTree(actor, id);
 }
 
-/** Deletes the tree; its photos go with it (the caller removes their files), answers stay and lose the link. */
+/** Deletes the tree and its photos (rows by cascade, then their files); answers stay and lose the link. */
 export async function deleteTree(actor: SessionUser, id: string): Promise<void> {
+  const files = await photoFilesOfTree(actor, id);
   const db = await getDb();
   const rows = await db
     .delete(trees)
     .where(and(eq(trees.id, id), eq(trees.ownerId, actor.id)))
     .returning({ id: trees.id });
   if (!rows[0]) throw new AppError('not_found:tree', 'No such tree.');
+  await removeStoredFiles(files);
 }
 
 /** The actor's answers about one of their trees, oldest observation first (the tree's story). */

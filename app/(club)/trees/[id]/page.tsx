@@ -5,6 +5,8 @@ import { listTreeAnswers } from '@/lib/data/trees';
 import { askParamsFor, describeCollected, describeContainer } from '@/lib/trees/describe';
 import { loadTreeOr404 } from '../_components/load-tree';
 import { DeleteTreeButton } from '../_components/delete-tree-button';
+import { listPhotos } from '@/lib/data/photos';
+import { PhotoPanel } from '@/components/photos/photo-panel';
 
 export const metadata: Metadata = { title: 'Tree' };
 
@@ -16,7 +18,7 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
   const { id } = await params;
   const actor = await requirePageUser(`/trees/${encodeURIComponent(id)}`);
   const tree = await loadTreeOr404(actor, id);
-  const answers = await listTreeAnswers(actor, tree.id);
+  const [answers, photos] = await Promise.all([listTreeAnswers(actor, tree.id), listPhotos(actor, { treeId: tree.id })]);
   const ask = `/ask?${askParamsFor(tree).toString()}`;
 
   return (
@@ -43,6 +45,11 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
           <div className="sm:col-span-2"><dt className="text-sm font-medium text-stone-600">Stage notes</dt><dd className="whitespace-pre-wrap">{tree.stageNotes || '—'}</dd></div>
           <div className="sm:col-span-2"><dt className="text-sm font-medium text-stone-600">Notes</dt><dd className="whitespace-pre-wrap">{tree.notes || '—'}</dd></div>
         </dl>
+      </section>
+
+      <section aria-labelledby="photos" className="space-y-3">
+        <h2 id="photos" className="text-xl">Photos</h2>
+        <PhotoPanel target={{ treeId: tree.id }} initial={photos} canAdd label={tree.name} />
       </section>
 
       <section aria-labelledby="answers-over-time" className="space-y-3">
