@@ -73,7 +73,7 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
   return (
     <div className="space-y-4" data-testid="photo-panel">
       {photos.length === 0 ? <p className="text-stone-700">No photos yet.</p> : null}
-      <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3" data-testid="photo-list">
+      <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-4" data-testid="photo-list">
         {photos.map((p, i) => (
           <li key={p.id} className="overflow-hidden rounded-card border border-stone-200 bg-white" data-testid="photo">
             <a href={p.url} target="_blank" rel="noopener" className="block">

@@ -60,8 +60,45 @@ export function TreesTable({ initial }: { initial: TreeDto[] }) {
     );
   }
 
+  const sortOptions = [
+    { value: 'name:asc', label: 'Name, A to Z' },
+    { value: 'name:desc', label: 'Name, Z to A' },
+    { value: 'species:asc', label: 'Species' },
+    { value: 'acquiredOn:desc', label: 'Acquired, newest first' },
+    { value: 'updatedAt:desc', label: 'Updated, newest first' },
+  ];
+  const current = sorting[0] ? `${sorting[0].id}:${sorting[0].desc ? 'desc' : 'asc'}` : 'name:asc';
+
   return (
-    <div className="overflow-x-auto rounded-card border border-stone-200 bg-white">
+    <>
+    {/* Phones get one card per tree and a sort select; wider screens get the sortable table. */}
+    <div className="space-y-3 sm:hidden">
+      <div>
+        <label htmlFor="tree-sort" className="field-label">Sort by</label>
+        <select
+          id="tree-sort"
+          className="field-input"
+          value={sortOptions.some((o) => o.value === current) ? current : ''}
+          onChange={(e) => {
+            const [id, dir] = e.target.value.split(':');
+            setSorting([{ id, desc: dir === 'desc' }]);
+          }}
+        >
+          {sortOptions.some((o) => o.value === current) ? null : <option value="">Column order</option>}
+          {sortOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+        </select>
+      </div>
+      <ul className="space-y-3" data-testid="tree-cards">
+        {table.getRowModel().rows.map(({ original: t }) => (
+          <li key={t.id} className="card py-3">
+            <Link href={`/trees/${t.id}`} className="inline-flex min-h-target items-center text-lg font-medium">{t.name}</Link>
+            <p className="text-stone-700">{t.speciesName ?? t.speciesSlug}</p>
+            <p className="text-sm text-stone-600">{describeContainer(t)} · From the wild: {describeCollected(t)}</p>
+          </li>
+        ))}
+      </ul>
+    </div>
+    <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
       <table className="w-full min-w-[40rem] text-left text-sm" data-testid="trees-table">
         <caption className="sr-only">Your trees. Select a column heading to sort.</caption>
         <thead className="bg-stone-100">
@@ -92,5 +129,6 @@ export function TreesTable({ initial }: { initial: TreeDto[] }) {
         </tbody>
       </table>
     </div>
+    </>
   );
 }
