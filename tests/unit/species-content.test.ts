@@ -10,7 +10,7 @@ const good = read('pinus-sylvestris');
 describe('species content files', () => {
   it('every shipped file passes the schema and is named after its slug', () => {
     const files = readSpeciesDir(dir);
-    expect(files.length).toBeGreaterThanOrEqual(6);
+    expect(files.length).toBeGreaterThanOrEqual(24);
     for (const f of files) {
       expect(f.result, f.file).toMatchObject({ ok: true });
       if (f.result.ok) expect(f.file).toBe(`${f.result.record.slug}.md`);
