@@ -7,6 +7,7 @@ import { newPublicId } from '@/lib/ids';
 import { newStorageKey, storage } from '@/lib/storage';
 import { MAX_PHOTOS_PER_ITEM, type ProcessedPhoto } from '@/lib/uploads/image';
 import type { SessionUser } from '@/lib/auth/session';
+import { getAnswer } from '@/lib/data/answers';
 
 // Shoot photos belong to an answer or a tree. Who may see a photo is who may see its item:
 // a tree's photos only its owner; an answer's photos its asker, and every signed-in member once
@@ -35,11 +36,10 @@ async function treeAccess(viewer: SessionUser, treeId: string): Promise<Access> 
 }
 
 async function answerAccess(viewer: SessionUser, answerId: string): Promise<Access> {
-  const db = await getDb();
-  const [a] = await db.select({ userId: answers.userId, visibility: answers.visibility }).from(answers).where(eq(answers.id, answerId)).limit(1);
+  // The answer log decides who may see an answer (its asker, or everyone once shared).
+  const a = await getAnswer(answerId, viewer);
   if (!a) return null;
-  if (a.userId === viewer.id) return 'owner';
-  return a.visibility === 'club' ? 'viewer' : null;
+  return a.isOwner ? 'owner' : 'viewer';
 }
 
 function accessTo(viewer: SessionUser, target: PhotoTarget): Promise<Access> {

@@ -14,7 +14,20 @@ export function describeCollected(t: { collectedFromWild: boolean; collectedOn: 
   return t.collectedOn ? `Yes, ${t.collectedOn}` : 'Yes';
 }
 
-/** Query parameters that start the wizard pre-filled from a tree. */
+const TWO_YEARS_MS = 2 * 365.25 * 24 * 3600 * 1000;
+
+/** Collected from the wild with no date, or within the last two years: the engine's recovery case. */
+export function isRecentlyCollected(t: { collectedFromWild: boolean; collectedOn: string | null }, today: string): boolean {
+  if (!t.collectedFromWild) return false;
+  if (!t.collectedOn) return true;
+  return Date.parse(today) - Date.parse(t.collectedOn) < TWO_YEARS_MS;
+}
+
+/**
+ * Query parameters that start the wizard pre-filled from a tree: `tree`, `species`, the container
+ * (`shape`, `lengthCm`, `widthCm`), `collected` (`true` when collected from the wild within the
+ * last two years, the wizard's recently-collected question) and `collectedOn` when known.
+ */
 export function askParamsFor(t: {
   id: string;
   speciesSlug: string;
@@ -23,14 +36,14 @@ export function askParamsFor(t: {
   containerWidthCm: number | null;
   collectedFromWild: boolean;
   collectedOn: string | null;
-}): URLSearchParams {
+}, today: string): URLSearchParams {
   const p = new URLSearchParams({ tree: t.id, species: t.speciesSlug });
   if (t.containerShape && t.containerLengthCm != null) {
     p.set('shape', t.containerShape);
     p.set('lengthCm', String(t.containerLengthCm));
     if (t.containerShape !== 'round' && t.containerWidthCm != null) p.set('widthCm', String(t.containerWidthCm));
   }
-  p.set('collected', t.collectedFromWild ? 'yes' : 'no');
+  p.set('collected', isRecentlyCollected(t, today) ? 'true' : 'false');
   if (t.collectedFromWild && t.collectedOn) p.set('collectedOn', t.collectedOn);
   return p;
 }

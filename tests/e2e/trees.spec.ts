@@ -19,11 +19,13 @@ test('a member adds a tree, uploads a photo and sees it on the tree; a refused f
   await form.getByLabel('Width (cm)').fill('30');
   await form.getByLabel('Yes').check();
   await expect(form.getByTestId('collecting-caution')).toContainText('permit');
-  await form.getByLabel('Date collected').fill('2025-10-04');
+  const collectedOn = new Date(Date.now() - 60 * 86_400_000).toISOString().slice(0, 10);
+  await form.getByLabel('Date collected').fill(collectedOn);
   await page.screenshot({ path: screenshotPath('tree-form-desktop'), fullPage: true });
   await form.getByRole('button', { name: 'Add tree' }).click();
   await expect(page.getByTestId('tree-name')).toHaveText('Weir-side mugo');
-  await expect(page.getByTestId('ask-about-tree')).toHaveAttribute('href', /\/ask\?tree=[^&]+&species=pinus-mugo&shape=rectangle&lengthCm=40&widthCm=30&collected=yes&collectedOn=2025-10-04/);
+  await expect(page.getByTestId('ask-about-tree')).toHaveAttribute('href', new RegExp(`/ask\\?tree=[^&]+&species=pinus-mugo&shape=rectangle&lengthCm=40&widthCm=30&collected=true&collectedOn=${collectedOn}$`));
+  await expect(page.getByTestId('due-now')).toContainText('recovery stage');
 
   // Two files at once: the disguised HTML is refused by the server, the photo arrives.
   await page.getByTestId('photo-input').setInputFiles([

@@ -56,7 +56,7 @@ describe('trees: owner only', () => {
     const html = await page.text();
     expect(html).toContain('Riverbank Scots');
     expect(html).toContain('Ask about this tree');
-    expect(html).toContain(`/ask?tree=${id}&amp;species=pinus-sylvestris&amp;shape=rectangle&amp;lengthCm=40&amp;widthCm=30&amp;collected=no`);
+    expect(html).toContain(`/ask?tree=${id}&amp;species=pinus-sylvestris&amp;shape=rectangle&amp;lengthCm=40&amp;widthCm=30&amp;collected=false`);
 
     const patched = await a.json(`/api/trees/${id}`, 'PATCH', { containerShape: 'round', containerLengthCm: 35 });
     expect(patched.status).toBe(200);
@@ -98,10 +98,18 @@ describe('trees: owner only', () => {
     expect((await a.json('/api/trees/..%2F..%2Fetc', 'GET')).status).toBe(404);
   });
 
-  it('passes the collection history to the wizard link of a collected tree', async () => {
+  it('passes the collection history to the wizard link, and due now treats a fresh collection as recovery', async () => {
     const a = await signedIn(base, 'member@candlewise.test');
-    const { body } = await a.json('/api/trees', 'POST', { ...tree, name: 'Hillside yamadori', containerShape: null, containerLengthCm: null, containerWidthCm: null, collectedFromWild: true, collectedOn: '2025-03-20' });
-    const html = await (await a.get(`/trees/${body.tree.id}`)).text();
-    expect(html).toContain(`/ask?tree=${body.tree.id}&amp;species=pinus-sylvestris&amp;collected=yes&amp;collectedOn=2025-03-20`);
+    const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10);
+    const wild = { ...tree, containerShape: null, containerLengthCm: null, containerWidthCm: null, collectedFromWild: true };
+    const fresh = (await a.json('/api/trees', 'POST', { ...wild, name: 'Hillside collected', collectedOn: daysAgo(100) })).body.tree;
+    const html = await (await a.get(`/trees/${fresh.id}`)).text();
+    expect(html).toContain(`/ask?tree=${fresh.id}&amp;species=pinus-sylvestris&amp;collected=true&amp;collectedOn=${daysAgo(100)}`);
+    expect(html).toMatch(/recovery stage \(collected from the wild within the last two years\)/);
+    // Five years in a container: no longer the recovery case.
+    const old = (await a.json('/api/trees', 'POST', { ...wild, name: 'Long settled', collectedOn: daysAgo(5 * 365) })).body.tree;
+    const oldHtml = await (await a.get(`/trees/${old.id}`)).text();
+    expect(oldHtml).toContain(`collected=false&amp;collectedOn=${daysAgo(5 * 365)}`);
+    expect(oldHtml).toContain('refinement stage (no answer about this tree yet');
   });
 });

@@ -3,10 +3,13 @@ import Link from 'next/link';
 import { requirePageUser } from '@/lib/auth/page-guard';
 import { listTreeAnswers } from '@/lib/data/trees';
 import { askParamsFor, describeCollected, describeContainer } from '@/lib/trees/describe';
+import { todayIso } from '@/lib/validation/trees';
 import { loadTreeOr404 } from '../_components/load-tree';
 import { DeleteTreeButton } from '../_components/delete-tree-button';
 import { listPhotos } from '@/lib/data/photos';
 import { PhotoPanel } from '@/components/photos/photo-panel';
+import { dueNowForTree } from '@/lib/data/tree-due-now';
+import { DueNowCard } from '../_components/due-now-card';
 
 export const metadata: Metadata = { title: 'Tree' };
 
@@ -19,7 +22,9 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
   const actor = await requirePageUser(`/trees/${encodeURIComponent(id)}`);
   const tree = await loadTreeOr404(actor, id);
   const [answers, photos] = await Promise.all([listTreeAnswers(actor, tree.id), listPhotos(actor, { treeId: tree.id })]);
-  const ask = `/ask?${askParamsFor(tree).toString()}`;
+  const latest = answers.length ? answers[answers.length - 1].stage : null;
+  const due = await dueNowForTree(tree, latest);
+  const ask = `/ask?${askParamsFor(tree, todayIso()).toString()}`;
 
   return (
     <div className="space-y-8">
@@ -35,6 +40,8 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
           <DeleteTreeButton id={tree.id} name={tree.name} />
         </div>
       </header>
+
+      {due ? <DueNowCard due={due} askHref={ask} /> : null}
 
       <section aria-labelledby="facts" className="card">
         <h2 id="facts" className="mb-3 text-xl">About this tree</h2>

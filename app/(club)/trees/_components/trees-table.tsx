@@ -11,7 +11,7 @@ import { describeCollected, describeContainer } from '@/lib/trees/describe';
 
 const col = createColumnHelper<TreeDto>();
 
-export function TreesTable({ initial }: { initial: TreeDto[] }) {
+export function TreesTable({ initial, due }: { initial: TreeDto[]; due: Record<string, string> }) {
   const { data } = useSWR<{ items: TreeDto[] }>('/api/trees', fetcher, { fallbackData: { items: initial } });
   const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
 
@@ -37,9 +37,10 @@ export function TreesTable({ initial }: { initial: TreeDto[] }) {
         header: 'From the wild',
         cell: (c) => describeCollected(c.row.original),
       }),
+      col.accessor((t) => due[t.id] ?? '', { id: 'due', header: 'Due now', cell: (c) => c.getValue() || '—' }),
       col.accessor('updatedAt', { header: 'Updated', cell: (c) => c.getValue().slice(0, 10) }),
     ],
-    [],
+    [due],
   );
 
   const table = useReactTable({
@@ -94,6 +95,7 @@ export function TreesTable({ initial }: { initial: TreeDto[] }) {
             <Link href={`/trees/${t.id}`} className="inline-flex min-h-target items-center text-lg font-medium">{t.name}</Link>
             <p className="text-stone-700">{t.speciesName ?? t.speciesSlug}</p>
             <p className="text-sm text-stone-600">{describeContainer(t)} · From the wild: {describeCollected(t)}</p>
+            {due[t.id] ? <p className="text-sm font-medium text-moss-800">Due now: {due[t.id]}</p> : null}
           </li>
         ))}
       </ul>
