@@ -4,7 +4,7 @@ import { TreesPage } from './pages/trees';
 import { htmlRenamedPng, jpegPhoto } from '../support/images';
 
 test('a member adds a tree, uploads a photo and sees it on the tree; a refused file costs nothing else', async ({ page }) => {
-  await new SignInPage(page).withPassword('member@candlewise.test');
+  await new SignInPage(page).withPassword('member2@candlewise.test');
   const trees = new TreesPage(page);
 
   // The form refuses a rectangle without a width, beside the field.
