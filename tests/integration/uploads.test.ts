@@ -136,4 +136,29 @@ describe('photo uploads', () => {
     expect(filesUnder(uploadsDir).length).toBe(before - 2);
     expect((await member.get(`/api/uploads/${body.photo.id}`)).status).toBe(404);
   });
+
+  it('answer photos follow the answer: club members see a shared answer\'s photos, only the asker adds or removes', async () => {
+    const shared = 'demoAnsWeirScots1'; // seeded: the demo member's answer, shared with the club
+    const up = await upload(member, { answerId: shared }, await jpegPhoto(), 'a.jpg', 'image/jpeg');
+    expect(up.status).toBe(201);
+    const id = up.body.photo.id;
+    expect((await other.get(`/api/uploads/${id}`)).status).toBe(200);
+    const seen = await other.json(`/api/uploads?answerId=${shared}`, 'GET');
+    expect(seen.body.items).toEqual([expect.objectContaining({ id, mine: false })]);
+    expect((await upload(other, { answerId: shared }, await jpegPhoto(), 'b.jpg', 'image/jpeg')).status).toBe(403);
+    expect((await other.json(`/api/uploads/${id}`, 'DELETE')).status).toBe(403);
+
+    const saved = await member.json('/api/answers', 'POST', {
+      species: 'pinus-mugo', branching: 'secondary', date: '2026-06-01', hemisphere: 'north',
+      shoot: 'needles-hardened', health: 'strong', backBuds: true,
+    });
+    expect(saved.status).toBe(201);
+    const privateId = saved.body.id;
+    const p = await upload(member, { answerId: privateId }, await pngPhoto(), 'c.png', 'image/png');
+    expect(p.status).toBe(201);
+    expect((await other.get(`/api/uploads/${p.body.photo.id}`)).status).toBe(404);
+    expect((await other.json(`/api/uploads?answerId=${privateId}`, 'GET')).status).toBe(404);
+    expect((await upload(other, { answerId: privateId }, await pngPhoto(), 'd.png', 'image/png')).status).toBe(404);
+    expect((await member.json(`/api/uploads/${id}`, 'DELETE')).status).toBe(204);
+  });
 });

@@ -37,7 +37,7 @@ function AnswerSearch({ onInsert }: { onInsert: (md: string) => void }) {
   return (
     <div className="space-y-3">
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5">
-        <div><label htmlFor="pick-species" className="field-label">Species</label><input id="pick-species" className="field-input" value={f.species} onChange={set('species')} placeholder="e.g. scots" /></div>
+        <div><label htmlFor="pick-species" className="field-label">Species name</label><input id="pick-species" className="field-input" value={f.species} onChange={set('species')} placeholder="e.g. scots" /></div>
         <div>
           <label htmlFor="pick-action" className="field-label">Action</label>
           <select id="pick-action" className="field-input" value={f.action} onChange={set('action')}>

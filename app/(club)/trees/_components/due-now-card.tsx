@@ -14,8 +14,7 @@ export function DueNowCard({ due, askHref }: { due: TreeDueNow; askHref: string 
     <section aria-labelledby="due-now" className="card space-y-3 border-moss-300 bg-moss-50" data-testid="due-now">
       <h2 id="due-now" className="text-xl">Due now</h2>
       <p className="text-sm text-stone-700">
-        {seasonWords[due.season]} in the {due.hemisphere}ern hemisphere, {due.stage} stage ({due.stageBasis}). The usual
-        state of a shoot now: {shootWords[due.assumedShoot] ?? due.assumedShoot}.
+        {`${seasonWords[due.season]} in the ${due.hemisphere}ern hemisphere, ${due.stage} stage (${due.stageBasis}). The usual state of a shoot now: ${shootWords[due.assumedShoot] ?? due.assumedShoot}.`}
       </p>
       <p className="text-lg font-semibold text-moss-900" data-testid="due-now-headline">{due.headline}</p>
       <p>{due.feedNow ? `Feeding: yes — ${due.feedingWindow}` : `Feeding: not now — ${due.feedingWindow}`}</p>
