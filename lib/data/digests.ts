@@ -27,7 +27,8 @@ export class DigestAlreadySentError extends AppError {
     super('conflict:digest_already_sent', `This note was already sent on ${previous.sentAt.slice(0, 10)} to ${previous.recipients} members. Send it again?`);
   }
   override toBody() {
-    return { ...super.toBody(), previous: this.previous };
+    const body = super.toBody();
+    return { error: { ...body.error, previous: this.previous } };
   }
 }
 

@@ -169,8 +169,8 @@ describe('e-mail digest', () => {
     const second = await librarian.json(`/api/notes/${slug}/send`, 'POST', {});
     expect(second.status).toBe(409);
     expect(second.body.error.code).toBe('conflict:digest_already_sent');
-    expect(second.body.previous.sentAt).toBe(first.body.sentAt);
-    expect(second.body.previous.recipients).toBe(optedIn);
+    expect(second.body.error.previous.sentAt).toBe(first.body.sentAt);
+    expect(second.body.error.previous.recipients).toBe(optedIn);
     const confirmed = await librarian.json(`/api/notes/${slug}/send`, 'POST', { confirm: true });
     expect(confirmed.status).toBe(201);
     const sends = (await librarian.json(`/api/notes/${slug}/send`, 'GET')).body.sends;

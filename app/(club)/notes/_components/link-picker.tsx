@@ -21,7 +21,7 @@ const actionWord = (a: string) => actionOptions.find((o) => o.value === a)?.labe
 const linkText = (s: string) => s.replace(/[[\]\\]/g, (c) => `\\${c}`);
 
 export function answerLinkMarkdown(a: LinkableAnswerDto): string {
-  return `[${linkText(`${actionWord(a.action)}: ${a.speciesName}, ${formatMeetingDate(a.observedOn)} (${a.askerName})`)}](${a.url})`;
+  return `[${linkText(`${actionWord(a.action).toLowerCase()} on ${a.speciesName}`)}](${a.url})`;
 }
 
 export function speciesLinkMarkdown(s: SpeciesItem): string {

@@ -60,7 +60,18 @@ export function NotesList({ initial }: { initial: NoteSummaryDto[] }) {
       {items.length === 0 ? (
         <p className="card text-stone-700" data-testid="notes-empty">{q.trim() ? 'No note matches that search.' : 'No meeting notes yet.'}</p>
       ) : (
-        <div className="overflow-x-auto rounded-card border border-stone-200 bg-white">
+        <>
+        {/* Phones: one card per note, newest meeting first. */}
+        <ul className="space-y-3 sm:hidden" data-testid="note-cards">
+          {table.getRowModel().rows.map(({ original: n }) => (
+            <li key={n.slug} className="card py-3">
+              <p className="text-sm text-stone-700"><time dateTime={n.meetingDate}>{formatMeetingDate(n.meetingDate)}</time> · {n.authorName}</p>
+              <Link href={`/notes/${n.slug}`} className="inline-flex min-h-target items-center text-lg font-medium">{n.title}</Link>
+              <div><StatusBadge status={n.status} /></div>
+            </li>
+          ))}
+        </ul>
+        <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
           <table className="w-full text-left text-sm" data-testid="notes-table">
             <caption className="sr-only">Meeting notes. Select a column heading to sort.</caption>
             <thead className="bg-stone-100">
@@ -91,6 +102,7 @@ export function NotesList({ initial }: { initial: NoteSummaryDto[] }) {
             </tbody>
           </table>
         </div>
+        </>
       )}
     </div>
   );

@@ -25,8 +25,8 @@ export function SendDigest({ slug, published }: { slug: string; published: boole
       await mutate();
     } catch (e) {
       if (e instanceof ApiError && e.status === 409 && e.body.code === 'conflict:digest_already_sent') {
-        const prev = (e.body as unknown as { previous?: DigestSendDto }).previous ?? null;
-        setConfirming(prev);
+        const prev = (e.body as unknown as { previous?: DigestSendDto }).previous;
+        setConfirming(prev ?? { sentAt: new Date().toISOString(), recipients: 0, senderName: 'a librarian' });
       } else {
         setMessage((e as Error).message);
       }
