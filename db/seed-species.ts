@@ -1,7 +1,8 @@
 import 'server-only';
 import type { Db } from './open';
 import { species, speciesRevisions } from './schema';
-import { readSpeciesDir, speciesColumns } from '@/lib/species/content';
+import { speciesColumns } from '@/lib/species/content';
+import { readSpeciesDir } from '@/lib/species/content-dir';
 
 /**
  * Import content/species/*.md as published revision 1 of each species. Idempotent: a slug

@@ -1,6 +1,6 @@
 import 'server-only';
 import { randomBytes } from 'node:crypto';
-import { and, desc, eq, or, sql } from 'drizzle-orm';
+import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, trees, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
@@ -58,6 +58,7 @@ export interface AnswerListItem {
   followUp: string;
   visibility: 'private' | 'club';
   createdAt: string;
+  askerName: string;
 }
 
 const answerUrl = (id: string) => `/answers/${id}`;
@@ -113,12 +114,27 @@ function decodeCursor(cursor: string): { createdAt: Date; id: string } {
 }
 
 /** The user's own answers, newest first, keyset-paginated. */
-export async function listOwnAnswers(
+export function listOwnAnswers(
   user: Pick<SessionUser, 'id'>,
   q: { cursor?: string; species?: string; action?: Action; limit?: number },
 ): Promise<{ items: AnswerListItem[]; nextCursor: string | null }> {
+  return listAnswers(eq(answers.userId, user.id), q);
+}
+
+/** Answers shared with the club (anyone's), newest first: what librarians link into notes. */
+export function listSharedAnswers(
+  _viewer: Pick<SessionUser, 'id'>,
+  q: { cursor?: string; species?: string; action?: Action; limit?: number },
+): Promise<{ items: AnswerListItem[]; nextCursor: string | null }> {
+  return listAnswers(eq(answers.visibility, 'club'), q);
+}
+
+async function listAnswers(
+  scope: SQL,
+  q: { cursor?: string; species?: string; action?: Action; limit?: number },
+): Promise<{ items: AnswerListItem[]; nextCursor: string | null }> {
   const limit = q.limit ?? 20;
-  const conds = [eq(answers.userId, user.id)];
+  const conds = [scope];
   if (q.species) conds.push(eq(answers.speciesSlug, q.species));
   if (q.action) conds.push(eq(answers.action, q.action));
   if (q.cursor) {
@@ -130,9 +146,10 @@ export async function listOwnAnswers(
     .select({
       id: answers.id, speciesSlug: answers.speciesSlug, action: answers.action, stage: answers.stage, season: answers.season,
       observedOn: answers.observedOn, result: answers.result, note: answers.note, followUp: answers.followUp,
-      visibility: answers.visibility, createdAt: answers.createdAt,
+      visibility: answers.visibility, createdAt: answers.createdAt, askerName: users.name,
     })
     .from(answers)
+    .innerJoin(users, eq(users.id, answers.userId))
     .where(and(...conds))
     .orderBy(desc(answers.createdAt), desc(answers.id))
     .limit(limit + 1);
@@ -142,7 +159,7 @@ export async function listOwnAnswers(
     return {
       id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: res.speciesName ?? r.speciesSlug,
       action: r.action as Action, stage: r.stage, season: r.season, observedOn: r.observedOn, headline: res.headline ?? r.action,
-      note: r.note, followUp: r.followUp, visibility: r.visibility, createdAt: r.createdAt.toISOString(),
+      note: r.note, followUp: r.followUp, visibility: r.visibility, createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName),
     };
   });
   const last = page[page.length - 1];

@@ -1,5 +1,3 @@
-import fs from 'node:fs';
-import path from 'node:path';
 import matter from 'gray-matter';
 import YAML from 'yaml';
 import type { FieldErrors } from '@/lib/errors';
@@ -67,19 +65,4 @@ export function speciesColumns(record: SpeciesRecord) {
     needleMinMm: record.traits.needleLengthMm.value.min,
     needleMaxMm: record.traits.needleLengthMm.value.max,
   };
-}
-
-export interface SpeciesFile {
-  file: string;
-  result: ParsedSpecies;
-}
-
-/** Every `*.md` file of a folder (default: content/species under the working directory), sorted by name. */
-export function readSpeciesDir(dir = path.resolve(process.cwd(), SPECIES_CONTENT_DIR)): SpeciesFile[] {
-  if (!fs.existsSync(dir)) return [];
-  return fs
-    .readdirSync(dir)
-    .filter((f) => f.endsWith('.md'))
-    .sort()
-    .map((file) => ({ file, result: parseSpeciesMarkdown(fs.readFileSync(path.join(dir, file), 'utf8')) }));
 }

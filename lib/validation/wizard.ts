@@ -69,4 +69,6 @@ export const listAnswersQuerySchema = z.object({
   species: slugSchema.optional(),
   action: z.enum(actions).optional(),
   limit: z.coerce.number().int().min(1).max(100).optional(),
+  /** `mine` (default): your own answers; `club`: everyone's answers shared with the club. */
+  scope: z.enum(['mine', 'club']).optional(),
 });

@@ -23,15 +23,22 @@ export interface AskAnswers {
   container?: ContainerInput;
 }
 
-/** A question the answers so far make irrelevant is skipped. */
+/** A question the answers so far make irrelevant is skipped (position: only for a refinement branch). */
 export function isRelevant(step: AskStep, a: AskAnswers): boolean {
-  if (step === 'position') return a.branching === 'tertiary';
+  if (step === 'position') return a.branching === undefined || a.branching === 'tertiary';
   return true;
 }
 
 /** The back-bud question only matters for a development branch whose needles have hardened. */
 export function asksBackBuds(a: AskAnswers): boolean {
   return a.branching !== undefined && a.branching !== 'tertiary' && a.shoot === 'needles-hardened';
+}
+
+/** No pot, or a pot with every dimension its shape needs. */
+export function containerComplete(c: ContainerInput | undefined): boolean {
+  if (!c) return true;
+  const ok = (n: number | undefined) => typeof n === 'number' && Number.isFinite(n) && n > 0;
+  return ok(c.lengthCm) && (c.shape === 'round' || ok(c.widthCm));
 }
 
 export function isAnswered(step: AskStep, a: AskAnswers): boolean {
@@ -41,7 +48,7 @@ export function isAnswered(step: AskStep, a: AskAnswers): boolean {
     case 'shoot': return !!a.shoot;
     case 'position': return !!a.position;
     case 'health': return !!a.health;
-    case 'when': return !!a.date && /^\d{4}-\d{2}-\d{2}$/.test(a.date);
+    case 'when': return !!a.date && /^\d{4}-\d{2}-\d{2}$/.test(a.date) && containerComplete(a.container);
     case 'answer': return false;
   }
 }
@@ -137,7 +144,7 @@ export const askMachine = setup({
   },
   guards: {
     stepAnswered: ({ context }) => isAnswered(context.step, context.answers),
-    nextIsAnswer: ({ context }) => nextStep(context.step, context.answers) === 'answer',
+    nextIsAnswer: ({ context }) => isAnswered(context.step, context.answers) && nextStep(context.step, context.answers) === 'answer',
     gotoAnswer: ({ context, event }) => event.type === 'GOTO' && event.step === 'answer' && firstOpenStep(context.answers) === 'answer',
     gotoQuestion: ({ context, event }) =>
       event.type === 'GOTO' && event.step !== 'answer' && isRelevant(event.step, context.answers) && canReach(event.step, context.answers),

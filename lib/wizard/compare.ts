@@ -36,7 +36,15 @@ const fields: { field: string; label: string; get: (r: Stored) => unknown }[] = 
   { field: 'fertilizer.window', label: 'Feeding window', get: (r) => r.fertilizer?.window },
 ];
 
-const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
+// Stored results come back from jsonb with their keys reordered: compare canonically.
+function canonical(v: unknown): unknown {
+  if (Array.isArray(v)) return v.map(canonical);
+  if (v && typeof v === 'object') {
+    return Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, canonical((v as Record<string, unknown>)[k])]));
+  }
+  return v ?? null;
+}
+const same = (a: unknown, b: unknown) => JSON.stringify(canonical(a)) === JSON.stringify(canonical(b));
 
 export function compareResults(before: Stored, after: Stored): ResultComparison {
   const changes = fields

@@ -12,7 +12,9 @@ export function typicalShootState(s: SeasonInfo): ShootState {
 
 export interface DueNowInput {
   species: WizardSpecies;
-  /** What the grower knows of the tree; refinement when unknown. */
+  /** What the grower knows of the tree's stage; refinement when unknown. */
+  stageHint?: Stage;
+  /** Same as stageHint (either name is accepted). */
   stage?: Stage;
   date: string;
   hemisphere: Hemisphere;
@@ -38,7 +40,7 @@ export function dueNow(input: DueNowInput): DueNow {
   const date = parseIsoDate(input.date);
   if (!date) throw new RangeError('date must be YYYY-MM-DD');
   const s = seasonOf(date, input.hemisphere);
-  const stage = input.stage ?? 'refinement';
+  const stage = input.stageHint ?? input.stage ?? 'refinement';
   const shoot = typicalShootState(s);
   const result = evaluate(
     {

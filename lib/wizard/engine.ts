@@ -146,6 +146,8 @@ function decide(input: WizardInput, species: WizardSpecies, stage: Stage, s: Sea
   return { action: 'wait', keep: null, rules, watch };
 }
 
+const ASIDE_RULES = new Set<RuleId>(['flush.single-never-decandle', 'flush.no-decandle-development', 'flush.no-decandle-weak', 'flush.double-not-strong']);
+
 export class WizardInputError extends Error {
   constructor(readonly field: string, message: string) {
     super(message);
@@ -168,7 +170,9 @@ export function evaluate(input: WizardInput, species: WizardSpecies, context: Wi
   if (hemisphere === 'south') reasons.push(reason('season.south-shift'));
 
   const d = decide(input, species, stage, s);
-  for (const id of d.rules) reasons.push(reason(id));
+  // The rules that decided come first; the ones that only explain what is not done follow.
+  const aside = (id: RuleId) => ASIDE_RULES.has(id);
+  for (const id of [...d.rules.filter((r) => !aside(r)), ...d.rules.filter(aside)]) reasons.push(reason(id));
 
   if (isOutOfSeason(input.shoot, s)) {
     reasons.push(reason('season.out-of-season'));

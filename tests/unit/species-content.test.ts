@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import path from 'node:path';
-import { parseSpeciesMarkdown, readSpeciesDir, serializeSpeciesMarkdown } from '@/lib/species/content';
+import { parseSpeciesMarkdown, serializeSpeciesMarkdown } from '@/lib/species/content';
+import { readSpeciesDir } from '@/lib/species/content-dir';
 
 const dir = path.resolve(__dirname, '../../content/species');
 const read = (slug: string) => fs.readFileSync(path.join(dir, `${slug}.md`), 'utf8');

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import path from 'node:path';
-import { readSpeciesDir } from '@/lib/species/content';
+import { readSpeciesDir } from '@/lib/species/content-dir';
 import { searchSpecies } from '@/lib/species/search';
 
 const items = readSpeciesDir(path.resolve(__dirname, '../../content/species')).flatMap((f) => (f.result.ok ? [f.result.record] : []));

@@ -2,13 +2,13 @@ import { NextResponse } from 'next/server';
 import { parseJson, parseQuery, route } from '@/lib/http/route';
 import { listAnswersQuerySchema, saveAnswerSchema } from '@/lib/validation/wizard';
 import { requireUser } from '@/lib/auth/session';
-import { listOwnAnswers, saveAnswer } from '@/lib/data/answers';
+import { listOwnAnswers, listSharedAnswers, saveAnswer } from '@/lib/data/answers';
 
-/** The signed-in user's own answers, newest first. */
+/** The signed-in user's own answers, newest first; `?scope=club` lists answers shared with the club. */
 export const GET = route(async (req) => {
-  const q = parseQuery(req, listAnswersQuerySchema);
+  const { scope, ...q } = parseQuery(req, listAnswersQuerySchema);
   const user = await requireUser();
-  return NextResponse.json(await listOwnAnswers(user, q));
+  return NextResponse.json(await (scope === 'club' ? listSharedAnswers(user, q) : listOwnAnswers(user, q)));
 });
 
 /** Evaluate and save: the evaluate body plus optional treeId, note and visibility. */

@@ -150,3 +150,15 @@ describe('ask helpers', () => {
     expect(toEvaluateBody({ ...full, branching: 'primary', shoot: 'needles-hardened', backBuds: false }).backBuds).toBe(false);
   });
 });
+
+describe('pot dimensions', () => {
+  it('holds the last question until the pot has the dimensions its shape needs', () => {
+    const { actor, step } = start({ answers: { ...full, container: { shape: 'rectangle', lengthCm: 40 } } });
+    expect(step()).toBe('when');
+    actor.send({ type: 'NEXT' });
+    expect(actor.getSnapshot().matches('asking')).toBe(true);
+    actor.send({ type: 'SET', answers: { container: { shape: 'round', lengthCm: 30 } } });
+    actor.send({ type: 'NEXT' });
+    expect(actor.getSnapshot().matches('evaluating')).toBe(true);
+  });
+});

@@ -43,6 +43,9 @@ describe('refinement: pinching a single-flush pine', () => {
     );
     expect(r.headline).toMatch(/leave at least 2 pairs of needles/);
     expect(r.watch.join(' ')).toMatch(/two to three weeks/);
+    // the deciding rules come before the asides
+    expect(r.reasons.map((x) => x.rule).slice(0, 2)).toEqual(['stage.refinement', 'refine.pinch-soft-candle']);
+    expect(r.reasons.at(-1)!.rule).toBe('flush.single-never-decandle');
   });
 
   it('is too late once the needles are opening', () => {
@@ -317,7 +320,7 @@ describe('dueNow for a tree', () => {
     expect(winter).toMatchObject({ season: 'winter', action: 'wait', feedNow: false });
     const bpJune = dueNow({ species: blackPine, stage: 'refinement', date: '2027-06-20', hemisphere: 'north' });
     expect(bpJune.action).toBe('decandle');
-    const dev = dueNow({ species: scots, stage: 'development', date: '2027-08-20', hemisphere: 'north' });
+    const dev = dueNow({ species: scots, stageHint: 'development', date: '2027-08-20', hemisphere: 'north' });
     expect(dev.action).toBe('prune');
     const rec = dueNow({ species: scots, stage: 'recovery', date: '2027-05-20', hemisphere: 'north' });
     expect(rec.action).toBe('let-grow');

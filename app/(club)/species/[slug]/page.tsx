@@ -42,12 +42,14 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
   const rec = s.record;
   const html = await renderMarkdown(s.body);
 
-  // Number each distinct citation once, in trait order, for the sources list.
+  // Number each distinct work once, in trait order, for the sources list. A citation reads
+  // "Work: detail"; the marker shows it whole, the list names the work.
   const citations: string[] = [];
   const numberOf = (c?: string) => {
     if (!c) return undefined;
-    let i = citations.indexOf(c);
-    if (i < 0) i = citations.push(c) - 1;
+    const work = c.split(': ')[0].trim();
+    let i = citations.indexOf(work);
+    if (i < 0) i = citations.push(work) - 1;
     return i + 1;
   };
   const rows = traitOrder.map((key) => {
@@ -119,7 +121,7 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
             {rec.cautions.map((c, i) => (
               <li key={i} className="flex flex-wrap items-start gap-2">
                 <span className="flex-1">{c.text}</span>
-                <SourceMarker id={`caution-${i}`} provenance={c.provenance} citation={c.citation} sourceNumber={cautionNumbers[i]} />
+                <SourceMarker id={`caution-${i}`} provenance={c.provenance} citation={c.citation} sourceNumber={cautionNumbers[i]} align="end" />
               </li>
             ))}
           </ul>
@@ -130,7 +132,7 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
       <section aria-labelledby="notes-h">
         <h2 id="notes-h" className="text-xl">Care notes</h2>
         {s.body.trim() ? (
-          <div className="prose prose-stone mt-3 max-w-none prose-headings:font-display" dangerouslySetInnerHTML={{ __html: html }} />
+          <div className="prose prose-stone mt-3 max-w-none prose-headings:font-display prose-h2:mt-4 prose-h2:text-lg prose-h3:text-base" dangerouslySetInnerHTML={{ __html: html }} />
         ) : (
           <p className="mt-3 text-stone-700">No care notes yet.</p>
         )}

@@ -77,16 +77,17 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
       col.accessor('botanicalName', {
         header: 'Botanical name',
         cell: (c) => (
-          <span className="flex flex-col gap-1">
+          <span className="flex flex-col">
             <Link href={`/species/${c.row.original.slug}`} className="inline-flex min-h-target items-center font-medium italic">
               {c.getValue()}
             </Link>
+            <span className="text-stone-700 sm:hidden">{c.row.original.commonNames.join(', ')}</span>
             {showDrafts && c.row.original.publishedRevision === null && <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Not published</span>}
             {showDrafts && c.row.original.publishedRevision !== null && c.row.original.hasDraft && <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Draft waiting</span>}
           </span>
         ),
       }),
-      col.accessor((r) => r.commonNames.join(', '), { id: 'commonNames', header: 'Common names' }),
+      col.accessor((r) => r.commonNames.join(', '), { id: 'commonNames', header: 'Common names', meta: { narrowHidden: true } }),
       col.accessor('group', { header: 'Group', cell: (c) => groupLabels[c.getValue()] ?? c.getValue(), meta: { narrowHidden: true } }),
       col.accessor('flushHabit', { header: 'Flush', cell: (c) => (c.getValue() ? valueLabels[c.getValue()!] : '—') }),
       col.accessor((r) => r.needleLengthMm.min ?? 0, {
@@ -195,7 +196,7 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
             </thead>
             <tbody>
               {table.getRowModel().rows.map((r) => (
-                <tr key={r.id} className="border-t border-stone-200 align-top" data-testid="species-row">
+                <tr key={r.id} className="border-t border-stone-200 align-middle" data-testid="species-row">
                   {r.getVisibleCells().map((c) => {
                     const narrow = (c.column.columnDef.meta as { narrowHidden?: boolean } | undefined)?.narrowHidden;
                     return (

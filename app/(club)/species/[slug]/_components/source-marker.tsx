@@ -9,9 +9,10 @@ const tone: Record<ProvenanceKind, string> = {
 
 /**
  * A small source marker beside a value. The citation shows on hover and on keyboard focus (the
- * marker is a focusable button described by the tooltip), so it works without a mouse.
+ * marker is a focusable button described by the tooltip), so it works without a mouse. The tip is
+ * display:none until then, so it never widens the page on a phone.
  */
-export function SourceMarker({ id, provenance, citation, note, sourceNumber }: { id: string; provenance: ProvenanceKind; citation?: string; note?: string; sourceNumber?: number }) {
+export function SourceMarker({ id, provenance, citation, note, sourceNumber, align = 'start' }: { id: string; provenance: ProvenanceKind; citation?: string; note?: string; sourceNumber?: number; align?: 'start' | 'end' }) {
   const label = provenanceLabels[provenance];
   const tipId = `${id}-tip`;
   return (
@@ -29,7 +30,7 @@ export function SourceMarker({ id, provenance, citation, note, sourceNumber }: {
       <span
         role="tooltip"
         id={tipId}
-        className="invisible absolute bottom-full left-1/2 z-20 mb-2 w-64 max-w-[80vw] -translate-x-1/2 rounded-lg bg-stone-900 p-2 text-xs leading-snug text-white opacity-0 shadow-lg transition-opacity group-focus-within:visible group-focus-within:opacity-100 group-hover:visible group-hover:opacity-100"
+        className={`absolute bottom-full z-20 mb-2 hidden w-64 max-w-[75vw] rounded-lg bg-stone-900 p-2 text-xs leading-snug text-white shadow-lg group-focus-within:block group-hover:block ${align === 'end' ? 'right-0' : 'left-0'}`}
       >
         <strong className="block">{label.long}</strong>
         {citation && <span className="block">{citation}</span>}
