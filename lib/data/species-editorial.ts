@@ -61,9 +61,10 @@ async function writeRevision(
   return { slug: input.record.slug, revision, status, publishedRevision, latestRevision: revision };
 }
 
-export async function createSpecies(actor: SessionUser, input: SpeciesCreateInput): Promise<SavedRevision> {
+export async function createSpecies(actor: SessionUser, input: SpeciesCreateInput, exec?: Db | Tx): Promise<SavedRevision> {
   assertEditor(actor);
-  const db = await getDb();
+  const db = exec ?? (await getDb());
+  // Inside a caller's transaction this nests as a savepoint.
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(species)
@@ -80,12 +81,13 @@ async function saveOnBase(
   slug: string,
   baseRevision: number,
   input: { record: SpeciesRecord; body: string; summary: string; publish: boolean },
+  exec?: Db | Tx,
 ): Promise<SavedRevision> {
   assertEditor(actor);
   if (input.record.slug !== slug) {
     throw new AppError('invalid:slug', 'The slug of a species cannot change.', { 'record.slug': [`Keep it as ${slug}`] });
   }
-  const db = await getDb();
+  const db = exec ?? (await getDb());
   return db.transaction(async (tx) => {
     const [current] = await tx
       .select({ id: species.id, latestRevision: species.latestRevision, publishedRevision: species.publishedRevision })
@@ -204,18 +206,21 @@ export async function commitSpeciesImport(actor: SessionUser, input: SpeciesImpo
     throw new AppError('invalid:import', `${bad.length} file(s) are not valid; nothing was imported.`, fields);
   }
   const summary = input.summary || 'Imported from a species file';
-  const results: (SavedRevision | { slug: string; action: 'unchanged' })[] = [];
-  for (const p of preview) {
-    const { record, body } = p.parsed!;
-    if (p.action === 'unchanged') {
-      results.push({ slug: record.slug, action: 'unchanged' });
-    } else if (p.action === 'create') {
-      results.push(await createSpecies(actor, { record, body, summary, publish: input.publish }));
-    } else {
-      const db = await getDb();
-      const [row] = await db.select({ latest: species.latestRevision }).from(species).where(eq(species.slug, record.slug)).limit(1);
-      results.push(await saveOnBase(actor, record.slug, row.latest, { record, body, summary, publish: input.publish }));
+  const db = await getDb();
+  // One transaction: a conflict on any file (say, an edit saved meanwhile) writes none of them.
+  return db.transaction(async (tx) => {
+    const results: (SavedRevision | { slug: string; action: 'unchanged' })[] = [];
+    for (const p of preview) {
+      const { record, body } = p.parsed!;
+      if (p.action === 'unchanged') {
+        results.push({ slug: record.slug, action: 'unchanged' });
+      } else if (p.action === 'create') {
+        results.push(await createSpecies(actor, { record, body, summary, publish: input.publish }, tx));
+      } else {
+        const [row] = await tx.select({ latest: species.latestRevision }).from(species).where(eq(species.slug, record.slug)).limit(1);
+        results.push(await saveOnBase(actor, record.slug, row.latest, { record, body, summary, publish: input.publish }, tx));
+      }
     }
-  }
-  return results;
+    return results;
+  });
 }

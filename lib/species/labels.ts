@@ -33,10 +33,10 @@ export const valueLabels: Record<string, string> = {
   strong: 'Strong',
 };
 
-export const provenanceLabels: Record<ProvenanceKind, { short: string; long: string }> = {
-  published: { short: 'P', long: 'Published source' },
-  'common-practice': { short: 'C', long: 'Common practice (trade knowledge, no published source)' },
-  'from-memory': { short: 'M', long: 'From memory (not yet checked against a source)' },
+export const provenanceLabels: Record<ProvenanceKind, { short: string; option: string; long: string }> = {
+  published: { short: 'P', option: 'Published', long: 'Published source' },
+  'common-practice': { short: 'C', option: 'Common practice', long: 'Common practice (trade knowledge, no published source)' },
+  'from-memory': { short: 'M', option: 'From memory', long: 'From memory (not yet checked against a source)' },
 };
 
 /** A trait value as text. */

@@ -97,3 +97,31 @@ test('an editor saves a draft and sees the change in the diff', async ({ page })
   await page.goto('/species/pinus-banksiana');
   await expect(page.getByText('Repot every third spring.')).toHaveCount(0);
 });
+
+test('an editor previews an import with errors per field before anything is written', async ({ page, request }) => {
+  const good = await (await request.get('/api/species/pinus-cembra/export')).text();
+  const fresh = good.replace('slug: pinus-cembra', 'slug: pinus-nova').replace('botanicalName: Pinus cembra', 'botanicalName: Pinus nova');
+  const broken = good.replace('slug: pinus-cembra', 'slug: pinus-fracta').replace(/flushHabit:\n(\s+)value: single/, 'flushHabit:\n$1value: sometimes');
+
+  await new SignInPage(page).withPassword('editor@candlewise.test');
+  await page.goto('/species/import');
+  await page.getByTestId('import-files').setInputFiles([
+    { name: 'pinus-nova.md', mimeType: 'text/markdown', buffer: Buffer.from(fresh) },
+    { name: 'pinus-fracta.md', mimeType: 'text/markdown', buffer: Buffer.from(broken) },
+  ]);
+  const preview = page.getByTestId('import-preview');
+  await expect(preview).toContainText('New species');
+  await expect(preview).toContainText('traits.flushHabit.value');
+  await expect(page.getByRole('button', { name: /^Import/ })).toHaveCount(0);
+  await page.screenshot({ path: screenshotPath('species-import-desktop'), fullPage: true });
+  expect((await page.request.get('/api/species/pinus-nova')).status()).toBe(404);
+
+  await page.getByTestId('import-files').setInputFiles([{ name: 'pinus-nova.md', mimeType: 'text/markdown', buffer: Buffer.from(fresh) }]);
+  await page.getByLabel(/Publish at once/).check();
+  await page.setViewportSize({ width: 360, height: 740 });
+  await expectNoPageOverflow(page);
+  await page.screenshot({ path: screenshotPath('species-import-360'), fullPage: true });
+  await page.getByRole('button', { name: 'Import 1 file(s)' }).click();
+  await expect(page.getByTestId('import-message')).toContainText('Imported 1 file(s)');
+  expect((await page.request.get('/api/species/pinus-nova')).status()).toBe(200);
+});

@@ -214,6 +214,10 @@ describe('species pages', () => {
     expect((await member.get('/species/pinus-mugo/edit')).status).toBe(403);
     expect((await member.get('/species/import')).status).toBe(403);
     expect((await editor.get('/species/pinus-mugo/edit')).status).toBe(200);
+    expect((await editor.get('/species/new')).status).toBe(200);
+    expect((await editor.get('/species/import')).status).toBe(200);
+    expect((await editor.get('/species/pinus-nonexistens/edit')).status).toBe(404);
+    expect((await member.get('/species/pinus-nonexistens/history')).status).toBe(404);
     expect((await member.get('/species/pinus-mugo/history')).status).toBe(200);
   });
 });

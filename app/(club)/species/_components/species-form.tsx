@@ -140,7 +140,7 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
             <div>
               <label htmlFor={`c-${i}-prov`} className="field-label">Source</label>
               <select id={`c-${i}-prov`} className="field-input" {...register(`record.cautions.${i}.provenance`)}>
-                {provenanceKinds.map((p) => <option key={p} value={p}>{provenanceLabels[p].long}</option>)}
+                {provenanceKinds.map((p) => <option key={p} value={p}>{provenanceLabels[p].option}</option>)}
               </select>
             </div>
             <div>
@@ -165,7 +165,7 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
           </div>
           <div>
             <p className="field-label" id="preview-label">Preview (as members will see it)</p>
-            <div aria-labelledby="preview-label" className="prose prose-stone min-h-40 max-w-none rounded-lg border border-stone-200 bg-stone-50 p-3" data-testid="body-preview" dangerouslySetInnerHTML={{ __html: preview }} />
+            <div aria-labelledby="preview-label" className="prose prose-stone min-h-40 max-w-none prose-headings:font-display prose-h2:mt-2 prose-h2:text-lg prose-h3:text-base rounded-lg border border-stone-200 bg-stone-50 p-3" data-testid="body-preview" dangerouslySetInnerHTML={{ __html: preview }} />
           </div>
         </div>
       </section>

@@ -100,7 +100,7 @@ export function TraitFields({ name, control, register, errors }: { name: Key; co
         <div>
           <label htmlFor={`${id}-prov`} className="field-label">Source</label>
           <select id={`${id}-prov`} className="field-input" {...register(`${base}.provenance` as 'record.traits.vigour.provenance')}>
-            {provenanceKinds.map((p) => <option key={p} value={p}>{provenanceLabels[p].long}</option>)}
+            {provenanceKinds.map((p) => <option key={p} value={p}>{provenanceLabels[p].option}</option>)}
           </select>
           <Err id={`${id}-prov-err`} msg={e('provenance')} />
         </div>

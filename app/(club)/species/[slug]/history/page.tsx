@@ -50,43 +50,30 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       <h1 className="page-title">Revision history</h1>
       {!editor && <p className="text-stone-700">Published revisions only; drafts are kept by the editors.</p>}
 
-      <div className="overflow-x-auto rounded-card border border-stone-200 bg-white">
-        <table className="w-full text-left text-sm" data-testid="revisions">
-          <caption className="sr-only">Revisions, newest first</caption>
-          <thead className="bg-stone-100">
-            <tr>
-              <th scope="col" className="px-3 py-2">Revision</th>
-              <th scope="col" className="px-3 py-2">Saved</th>
-              <th scope="col" className="px-3 py-2">Editor</th>
-              <th scope="col" className="px-3 py-2">Summary</th>
-              {editor && <th scope="col" className="px-3 py-2"><span className="sr-only">Actions</span></th>}
-            </tr>
-          </thead>
-          <tbody>
-            {revisions.map((r) => (
-              <tr key={r.revision} className="border-t border-stone-200 align-top">
-                <td className="px-3 py-2">
-                  <span className="font-medium">{r.revision}</span>{' '}
-                  <span className={`rounded px-1.5 text-xs ${r.status === 'draft' ? 'bg-sun-100 text-sun-700' : 'bg-moss-50 text-moss-800'}`}>
-                    {r.current ? 'live' : r.status === 'draft' ? 'draft' : 'published'}
-                  </span>
-                </td>
-                <td className="px-3 py-2"><time dateTime={r.savedAt}>{r.savedAt.slice(0, 16).replace('T', ' ')} UTC</time></td>
-                <td className="px-3 py-2">{r.editorName ?? 'Species library'}</td>
-                <td className="px-3 py-2">{r.summary || '—'}</td>
-                {editor && (
-                  <td className="px-3 py-2">
-                    <span className="flex flex-wrap gap-2">
-                      <Link className="btn-secondary" href={`/species/${slug}?revision=${r.revision}`} aria-label={`View revision ${r.revision}`}>View</Link>
-                      {latest && r.revision !== latest.revision && <RevertButton slug={slug} toRevision={r.revision} baseRevision={latest.revision} />}
-                    </span>
-                  </td>
-                )}
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <ol className="space-y-3" data-testid="revisions" aria-label="Revisions, newest first">
+        {revisions.map((r) => (
+          <li key={r.revision} className="card flex flex-wrap items-center justify-between gap-3 py-3 sm:py-4">
+            <div className="min-w-0 space-y-1">
+              <p>
+                <span className="font-semibold">Revision {r.revision}</span>{' '}
+                <span className={`rounded px-1.5 text-xs ${r.status === 'draft' ? 'bg-sun-100 text-sun-700' : 'bg-moss-50 text-moss-800'}`}>
+                  {r.current ? 'live' : r.status === 'draft' ? 'draft' : 'published'}
+                </span>
+              </p>
+              <p className="text-stone-900">{r.summary || 'No summary'}</p>
+              <p className="text-sm text-stone-700">
+                {r.editorName ?? 'Species library'}, <time dateTime={r.savedAt}>{r.savedAt.slice(0, 16).replace('T', ' ')} UTC</time>
+              </p>
+            </div>
+            {editor && (
+              <div className="flex flex-wrap gap-2">
+                <Link className="btn-secondary" href={`/species/${slug}?revision=${r.revision}`} aria-label={`View revision ${r.revision}`}>View</Link>
+                {latest && r.revision !== latest.revision && <RevertButton slug={slug} toRevision={r.revision} baseRevision={latest.revision} />}
+              </div>
+            )}
+          </li>
+        ))}
+      </ol>
 
       <section aria-labelledby="diff-h" className="card space-y-4">
         <h2 id="diff-h" className="text-xl">Compare two revisions</h2>
@@ -114,7 +101,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
             <p className="mb-2 text-sm text-stone-700">
               Revision {from} → {to}: <span className="bg-moss-100 px-1">added lines</span> and <span className="bg-clay-100 px-1 line-through">removed lines</span>.
             </p>
-            <pre className="overflow-x-auto rounded-lg border border-stone-200 bg-stone-50 p-3 text-xs leading-relaxed" data-testid="diff">
+            <pre className="whitespace-pre-wrap break-words rounded-lg border border-stone-200 bg-stone-50 p-3 text-xs leading-relaxed" data-testid="diff">
               {diff.map((part, i) =>
                 part.value.replace(/\n$/, '').split('\n').map((line, j, lines) => {
                   if (!part.added && !part.removed) {

@@ -63,7 +63,7 @@ export function ImportPanel() {
 
       {busy && <p role="status">Checking…</p>}
       {message && (
-        <p role="alert" className={`rounded-lg border p-3 ${message.tone === 'error' ? 'border-clay-500 bg-clay-100 text-clay-700' : 'border-moss-500 bg-moss-50 text-moss-900'}`}>
+        <p role="alert" data-testid="import-message" className={`rounded-lg border p-3 ${message.tone === 'error' ? 'border-clay-500 bg-clay-100 text-clay-700' : 'border-moss-500 bg-moss-50 text-moss-900'}`}>
           {message.text} {message.tone === 'ok' && <Link href="/species">Back to the species</Link>}
         </p>
       )}

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { getCurrentUser } from '@/lib/auth/session';
 import { hasRole } from '@/lib/auth/roles';
 import { listAllSpecies } from '@/lib/data/species-list';
-import { SpeciesTable, type SpeciesFilters } from './_components/species-table';
+import { SpeciesTable, type SpeciesFilters } from '../_components/species-table';
 
 export const metadata: Metadata = { title: 'Species' };
 
