@@ -25,7 +25,7 @@ export function isRecentlyCollected(t: { collectedFromWild: boolean; collectedOn
 
 /**
  * Query parameters that start the wizard pre-filled from a tree: `tree`, `species`, the container
- * (`shape`, `lengthCm`, `widthCm`), `collected` (`true` when collected from the wild within the
+ * (`shape`, `lengthCm`, `widthCm`), `collected` (`1` when collected from the wild within the
  * last two years, the wizard's recently-collected question) and `collectedOn` when known.
  */
 export function askParamsFor(t: {
@@ -43,7 +43,7 @@ export function askParamsFor(t: {
     p.set('lengthCm', String(t.containerLengthCm));
     if (t.containerShape !== 'round' && t.containerWidthCm != null) p.set('widthCm', String(t.containerWidthCm));
   }
-  p.set('collected', isRecentlyCollected(t, today) ? 'true' : 'false');
+  p.set('collected', isRecentlyCollected(t, today) ? '1' : '0');
   if (t.collectedFromWild && t.collectedOn) p.set('collectedOn', t.collectedOn);
   return p;
 }

@@ -56,7 +56,7 @@ describe('trees: owner only', () => {
     const html = await page.text();
     expect(html).toContain('Riverbank Scots');
     expect(html).toContain('Ask about this tree');
-    expect(html).toContain(`/ask?tree=${id}&amp;species=pinus-sylvestris&amp;shape=rectangle&amp;lengthCm=40&amp;widthCm=30&amp;collected=false`);
+    expect(html).toContain(`/ask?tree=${id}&amp;species=pinus-sylvestris&amp;shape=rectangle&amp;lengthCm=40&amp;widthCm=30&amp;collected=0`);
 
     const patched = await a.json(`/api/trees/${id}`, 'PATCH', { containerShape: 'round', containerLengthCm: 35 });
     expect(patched.status).toBe(200);
@@ -104,12 +104,12 @@ describe('trees: owner only', () => {
     const wild = { ...tree, containerShape: null, containerLengthCm: null, containerWidthCm: null, collectedFromWild: true };
     const fresh = (await a.json('/api/trees', 'POST', { ...wild, name: 'Hillside collected', collectedOn: daysAgo(100) })).body.tree;
     const html = await (await a.get(`/trees/${fresh.id}`)).text();
-    expect(html).toContain(`/ask?tree=${fresh.id}&amp;species=pinus-sylvestris&amp;collected=true&amp;collectedOn=${daysAgo(100)}`);
+    expect(html).toContain(`/ask?tree=${fresh.id}&amp;species=pinus-sylvestris&amp;collected=1&amp;collectedOn=${daysAgo(100)}`);
     expect(html).toMatch(/recovery stage \(collected from the wild within the last two years\)/);
     // Five years in a container: no longer the recovery case.
     const old = (await a.json('/api/trees', 'POST', { ...wild, name: 'Long settled', collectedOn: daysAgo(5 * 365) })).body.tree;
     const oldHtml = await (await a.get(`/trees/${old.id}`)).text();
-    expect(oldHtml).toContain(`collected=false&amp;collectedOn=${daysAgo(5 * 365)}`);
+    expect(oldHtml).toContain(`collected=0&amp;collectedOn=${daysAgo(5 * 365)}`);
     expect(oldHtml).toContain('refinement stage (no answer about this tree yet');
   });
 });

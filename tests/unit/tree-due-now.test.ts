@@ -51,7 +51,7 @@ describe('recent collection', () => {
 
   it('puts the stage the wizard would use, and the history, in the ask link', () => {
     const p = askParamsFor(tree({ collectedFromWild: true, collectedOn: '2026-09-01', containerShape: 'round', containerLengthCm: 28, containerWidthCm: null }), '2027-04-20');
-    expect(Object.fromEntries(p)).toEqual({ tree: 'tree-aaaaaaaaaaaa', species: 'pinus-sylvestris', shape: 'round', lengthCm: '28', collected: 'true', collectedOn: '2026-09-01' });
+    expect(Object.fromEntries(p)).toEqual({ tree: 'tree-aaaaaaaaaaaa', species: 'pinus-sylvestris', shape: 'round', lengthCm: '28', collected: '1', collectedOn: '2026-09-01' });
   });
 });
 
