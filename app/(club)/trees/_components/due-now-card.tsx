@@ -27,7 +27,7 @@ export function DueNowCard({ due, askHref }: { due: TreeDueNow; askHref: string 
         </div>
       ) : null}
       <p className="text-sm text-stone-700">
-        This is what the season suggests for an outer shoot of a healthy tree. Your shoots may differ: <Link href={askHref}>ask about a real shoot</Link> for an answer.
+        This is what the season suggests for a typical outer shoot at this stage. Your shoots may differ: <Link href={askHref}>ask about a real shoot</Link> for an answer.
       </p>
     </section>
   );
