@@ -189,3 +189,13 @@ export async function photoFilesOfTree(actor: SessionUser, treeId: string): Prom
 export async function removeStoredFiles(keys: string[]): Promise<void> {
   await Promise.allSettled(keys.map((k) => storage().delete(k)));
 }
+
+/** The stored files of an answer's photos: read before deleting the answer, remove after (removeStoredFiles). */
+export async function photoFilesOfAnswer(actor: SessionUser, answerId: string): Promise<string[]> {
+  const db = await getDb();
+  const rows = await db
+    .select({ storageKey: photos.storageKey, thumbKey: photos.thumbKey })
+    .from(photos)
+    .where(and(eq(photos.answerId, answerId), eq(photos.ownerId, actor.id)));
+  return rows.flatMap((r) => [r.storageKey, r.thumbKey]);
+}
