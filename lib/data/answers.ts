@@ -1,4 +1,5 @@
 import 'server-only';
+import { photoFilesOfAnswer, removeStoredFiles } from '@/lib/data/photos';
 import { randomBytes } from 'node:crypto';
 import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
@@ -209,10 +210,13 @@ export async function updateAnswer(
 
 export async function deleteAnswer(user: Pick<SessionUser, 'id'>, id: string): Promise<void> {
   const db = await getDb();
+  // The photo rows go with the answer (cascade); their files are read first and removed after.
+  const files = answerIdPattern.test(id) ? await photoFilesOfAnswer(user, id) : [];
   const rows = answerIdPattern.test(id)
     ? await db.delete(answers).where(and(eq(answers.id, id), eq(answers.userId, user.id))).returning({ id: answers.id })
     : [];
   if (!rows.length) await refuse(id, user);
+  await removeStoredFiles(files);
 }
 
 async function refuse(id: string, user: Pick<SessionUser, 'id'>): Promise<never> {

@@ -191,7 +191,7 @@ export async function removeStoredFiles(keys: string[]): Promise<void> {
 }
 
 /** The stored files of an answer's photos: read before deleting the answer, remove after (removeStoredFiles). */
-export async function photoFilesOfAnswer(actor: SessionUser, answerId: string): Promise<string[]> {
+export async function photoFilesOfAnswer(actor: Pick<SessionUser, 'id'>, answerId: string): Promise<string[]> {
   const db = await getDb();
   const rows = await db
     .select({ storageKey: photos.storageKey, thumbKey: photos.thumbKey })

@@ -6,6 +6,9 @@ import { getAnswer } from '@/lib/data/answers';
 import { AnswerResult } from '@/components/wizard/answer-result';
 import { OwnerControls } from './_components/owner-controls';
 import { RerunPanel } from './_components/rerun-panel';
+import { Backlinks } from '@/components/backlinks';
+import { PhotoPanel } from '@/components/photos/photo-panel';
+import { listPhotos } from '@/lib/data/photos';
 
 export const metadata: Metadata = { title: 'Answer' };
 
@@ -27,6 +30,7 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
   const user = await requirePageUser(`/answers/${id}`);
   const a = await getAnswer(id, user);
   if (!a) notFound();
+  const photos = await listPhotos(user, { answerId: a.id });
   const input = a.input as unknown as Record<string, unknown>;
   const c = a.input.container;
   return (
@@ -50,6 +54,8 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
         {!a.isOwner && a.note && <p className="mt-3"><span className="font-medium">Note:</span> {a.note}</p>}
         {!a.isOwner && a.followUp && <p className="mt-2 whitespace-pre-wrap"><span className="font-medium">What happened:</span> {a.followUp}</p>}
       </section>
+      <PhotoPanel target={{ answerId: a.id }} initial={photos} canAdd={a.isOwner} label="Shoot photos" />
+      <Backlinks type="answer" id={a.id} />
       {a.isOwner && <OwnerControls id={a.id} initial={{ note: a.note, followUp: a.followUp, visibility: a.visibility }} />}
       <RerunPanel id={a.id} />
       <p><Link href={a.isOwner ? '/answers' : '/ask'}>{a.isOwner ? '← All your answers' : 'Ask about your own tree'}</Link></p>

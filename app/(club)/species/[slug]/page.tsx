@@ -11,6 +11,7 @@ import { formatTraitValue, groupLabels, provenanceLabels, traitLabels, traitOrde
 import { wizardSummary } from '@/lib/species/wizard-summary';
 import { slugSchema } from '@/lib/validation/species';
 import { SourceMarker } from './_components/source-marker';
+import { Backlinks } from '@/components/backlinks';
 
 type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -137,6 +138,8 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
           <p className="mt-3 text-stone-700">No care notes yet.</p>
         )}
       </section>
+
+      <Backlinks type="species" id={s.slug} />
 
       <section aria-labelledby="sources-h" className="card">
         <h2 id="sources-h" className="text-xl">Sources</h2>
