@@ -66,7 +66,8 @@ describe('cross-site writes', () => {
     const admin = await f.client('admin');
     const before = (await admin.json('/api/settings', 'GET')).body.settings;
     const evil = { clubName: 'Taken over', hemisphere: before.hemisphere === 'north' ? 'south' : 'north', defaultLatitude: -12 };
-    for (const headers of [{ origin: EVIL }, { origin: 'null' }, { 'sec-fetch-site': 'cross-site' }]) {
+    const forged: Record<string, string>[] = [{ origin: EVIL }, { origin: 'null' }, { 'sec-fetch-site': 'cross-site' }];
+    for (const headers of forged) {
       await admin.json('/api/settings', 'PUT', evil, headers);
     }
     await admin.request('/api/settings', { method: 'PUT', headers: { 'content-type': 'text/plain', origin: EVIL }, body: JSON.stringify(evil) });
