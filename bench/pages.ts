@@ -79,6 +79,7 @@ export async function lighthouseScores(base: string) {
         failedAudits: Object.entries(r.lhr.audits as Record<string, { score: number | null; title?: string; scoreDisplayMode?: string }>)
           .filter(([, a]) => a.score !== null && a.score < 0.9 && a.scoreDisplayMode !== 'informative' && a.scoreDisplayMode !== 'manual' && a.scoreDisplayMode !== 'notApplicable')
           .map(([k, a]) => `${k}: ${a.title} (${a.score})`),
+        consoleErrors: ((r.lhr.audits['errors-in-console'] as { details?: { items?: { description?: string; source?: string }[] } })?.details?.items ?? []).map((i) => `${i.source}: ${i.description}`),
       };
     }
   } finally {
