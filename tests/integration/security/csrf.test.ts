@@ -14,9 +14,9 @@ const appRows = routeMatrix.filter((r) => isMutating(r) && r.kind !== 'auth');
 
 /** The actor that gets furthest with a row: the first one allowed to make it. */
 function allowedActor(row: RouteRow): Actor {
-  const a = ACTORS.find((x) => [200, 201, 204].some((s) => statusOk(row.expect[x], s)));
-  if (!a) throw new Error(`${row.route}: no actor is allowed to make it, so a forgery proves nothing`);
-  return a;
+  // A route nobody may use with the matrix's body (the unsubscribe link without a real token)
+  // is still sent cross-site: the origin check comes before anything else.
+  return ACTORS.find((x) => [200, 201, 204].some((s) => statusOk(row.expect[x], s))) ?? 'anonymous';
 }
 
 async function bodyText(res: Response) {
@@ -45,7 +45,8 @@ describe('cross-site writes', () => {
       attempts.push(
         { label: 'text/plain JSON, cross-site', headers: { 'content-type': 'text/plain;charset=UTF-8', origin: EVIL, 'sec-fetch-site': 'cross-site' }, ok: [403, 415] },
         { label: 'text/plain JSON, fetch metadata only', headers: { 'content-type': 'text/plain;charset=UTF-8', 'sec-fetch-site': 'cross-site' }, ok: [403, 415] },
-        { label: 'text/plain JSON, no Origin', headers: { 'content-type': 'text/plain;charset=UTF-8' }, ok: [415] },
+        // Without Origin this is no browser's request, but it must still not be taken as JSON.
+        { label: 'text/plain JSON, no Origin', headers: { 'content-type': 'text/plain;charset=UTF-8' }, ok: [400, 415] },
       );
     }
     const failures: string[] = [];

@@ -9,7 +9,7 @@ export interface RequestSpec {
   path: string;
   json?: unknown;
   form?: Record<string, string>;
-  multipart?: () => FormData;
+  multipart?: () => FormData | Promise<FormData>;
   headers?: Record<string, string>;
   /** A client to send with instead of the actor's shared one (for requests that end a session). */
   client?: Client;
@@ -62,7 +62,7 @@ export async function sendRow(f: Fixtures, row: RouteRow, actor: Actor, extra: R
     headers['content-type'] ??= 'application/x-www-form-urlencoded';
     body = new URLSearchParams(spec.form).toString();
   } else if (spec.multipart) {
-    body = spec.multipart();
+    body = await spec.multipart();
   }
   return client.request(spec.path, { method: row.method, headers, body });
 }
