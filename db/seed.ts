@@ -3,6 +3,7 @@ import { sql } from 'drizzle-orm';
 import bcrypt from 'bcryptjs';
 import type { Db } from './open';
 import { clubSettings, users, type Role } from './schema';
+import { seedSpecies } from './seed-species';
 
 // The demo club is invented: a riverside pine study group with invented members.
 export const DEMO_PASSWORD = 'candlewise-demo';
@@ -34,7 +35,7 @@ async function seedSettings(db: Db) {
 }
 
 /** Further seeders (species, demo trees and answers, notes) register here in order. */
-export const seeders: Seeder[] = [seedUsers, seedSettings];
+export const seeders: Seeder[] = [seedUsers, seedSettings, (db) => seedSpecies(db)];
 
 /** Idempotent: running it twice leaves the same rows. */
 export async function seed(db: Db) {

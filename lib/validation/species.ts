@@ -112,3 +112,64 @@ export function toWizardSpecies(rec: SpeciesRecord, revision: number): WizardSpe
     cautions: rec.cautions.map((c) => ({ text: c.text, source: sourceLabel(c) })),
   };
 }
+
+// ---- Editorial writes and queries (POST/PATCH bodies, list query, import) ----
+
+export const MAX_CARE_NOTES = 40_000;
+
+const careNotes = z.string().max(MAX_CARE_NOTES, { error: `Keep the care notes under ${MAX_CARE_NOTES} characters.` }).default('');
+const editSummary = z.string().trim().max(300, { error: 'Keep the edit summary under 300 characters.' }).default('');
+
+/** POST /api/species: a new species as a draft or published at once. */
+export const speciesCreateSchema = z.object({
+  record: speciesRecordSchema,
+  body: careNotes,
+  summary: editSummary,
+  publish: z.boolean().default(false),
+});
+export type SpeciesCreateInput = z.infer<typeof speciesCreateSchema>;
+
+/** PATCH /api/species/[slug]: a new revision on top of `baseRevision` (optimistic concurrency). */
+export const speciesPatchSchema = speciesCreateSchema.extend({
+  baseRevision: z.number({ error: 'Send the revision you started from as baseRevision.' }).int().min(1),
+});
+export type SpeciesPatchInput = z.infer<typeof speciesPatchSchema>;
+
+/** POST /api/species/[slug]/revert: copy an old revision into a new one. */
+export const speciesRevertSchema = z.object({
+  toRevision: z.number().int().min(1),
+  baseRevision: z.number().int().min(1),
+  summary: editSummary,
+  publish: z.boolean().default(true),
+});
+
+/** The editor form: the record plus the body, summary and intent, with strings for lists. */
+export const speciesFormSchema = speciesCreateSchema;
+
+const optionalEnum = <T extends readonly [string, ...string[]]>(values: T) =>
+  z.preprocess((v) => (v === '' ? undefined : v), z.enum(values).optional());
+const optionalMm = z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().positive().max(500).optional());
+
+/** GET /api/species query. */
+export const speciesListQuerySchema = z.object({
+  q: z.string().trim().max(100).optional(),
+  group: optionalEnum(speciesGroups),
+  flush: optionalEnum(flushHabits),
+  vigour: optionalEnum(levels),
+  needleMin: optionalMm,
+  needleMax: optionalMm,
+  limit: z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().int().min(1).max(100).default(50)),
+  cursor: z.string().max(400).optional(),
+});
+export type SpeciesListQuery = z.infer<typeof speciesListQuerySchema>;
+
+export const MAX_IMPORT_FILES = 50;
+export const speciesImportSchema = z.object({
+  files: z
+    .array(z.object({ name: z.string().trim().min(1).max(200), content: z.string().max(MAX_CARE_NOTES + 20_000) }))
+    .min(1, { error: 'Choose at least one .md file.' })
+    .max(MAX_IMPORT_FILES, { error: `Import at most ${MAX_IMPORT_FILES} files at a time.` }),
+  summary: editSummary,
+  publish: z.boolean().default(false),
+});
+export type SpeciesImportInput = z.infer<typeof speciesImportSchema>;

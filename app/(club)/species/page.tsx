@@ -1,3 +1,0 @@
-export default function Page() {
-  return <h1 className="page-title">Species</h1>;
-}

@@ -1,0 +1,12 @@
+import { NextResponse } from 'next/server';
+import { parseJson, route } from '@/lib/http/route';
+import { requireRole } from '@/lib/auth/session';
+import { commitSpeciesImport } from '@/lib/data/species-editorial';
+import { speciesImportSchema } from '@/lib/validation/species';
+
+// Editor or admin: import the files (all valid, or nothing is written: 422 with the fields per file).
+export const POST = route(async (req) => {
+  const input = await parseJson(req, speciesImportSchema, { maxBytes: 4_000_000 });
+  const actor = await requireRole('editor', 'species');
+  return NextResponse.json({ results: await commitSpeciesImport(actor, input) }, { status: 201 });
+});
