@@ -1,0 +1,274 @@
+import 'server-only';
+import { randomBytes } from 'node:crypto';
+import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
+import { getDb } from '@/db/client';
+import { answers, trees, users } from '@/db/schema';
+import { AppError } from '@/lib/errors';
+import type { SessionUser } from '@/lib/auth/session';
+import type { SaveAnswerBody } from '@/lib/validation/wizard';
+import type { Action, WizardInput, WizardResult } from '@/lib/wizard/types';
+import { compareResults, type ResultComparison } from '@/lib/wizard/compare';
+import { runWizard } from './wizard';
+
+// The answer log. Every read is scoped in the query itself: the owner sees their answers, any
+// signed-in member sees answers shared with the club, and nobody else learns that an id exists.
+
+type Viewer = Pick<SessionUser, 'id'> | null;
+
+/** 12 characters of base64url from 9 random bytes (72 bits): short and unguessable. */
+export function newAnswerId(): string {
+  return randomBytes(9).toString('base64url');
+}
+
+export const answerIdPattern = /^[A-Za-z0-9_-]{10,32}$/;
+
+export interface AnswerDto {
+  id: string;
+  url: string;
+  speciesSlug: string;
+  speciesName: string;
+  speciesRevision: number;
+  engineVersion: string;
+  action: Action;
+  stage: string;
+  season: string;
+  observedOn: string;
+  treeId: string | null;
+  input: WizardInput;
+  result: WizardResult;
+  note: string;
+  followUp: string;
+  visibility: 'private' | 'club';
+  createdAt: string;
+  askerName: string;
+  isOwner: boolean;
+}
+
+export interface AnswerListItem {
+  id: string;
+  url: string;
+  speciesSlug: string;
+  speciesName: string;
+  action: Action;
+  stage: string;
+  season: string;
+  observedOn: string;
+  headline: string;
+  note: string;
+  followUp: string;
+  visibility: 'private' | 'club';
+  createdAt: string;
+  askerName: string;
+}
+
+const answerUrl = (id: string) => `/answers/${id}`;
+const asker = (name: string | null) => name?.trim() || 'A club member';
+
+function visibleTo(viewer: Viewer) {
+  if (!viewer) return sql`false`;
+  return or(eq(answers.userId, viewer.id), eq(answers.visibility, 'club'))!;
+}
+
+export async function saveAnswer(user: SessionUser, body: SaveAnswerBody): Promise<{ id: string; url: string } & WizardResult> {
+  const { treeId, note, visibility, ...input } = body;
+  const db = await getDb();
+  if (treeId) {
+    const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, treeId), eq(trees.ownerId, user.id))).limit(1);
+    if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
+  }
+  const { result } = await runWizard(input);
+  const id = newAnswerId();
+  // createdAt set here at millisecond precision, so the keyset cursor round-trips exactly.
+  await db.insert(answers).values({
+    id,
+    userId: user.id,
+    treeId: treeId ?? null,
+    speciesSlug: result.speciesSlug,
+    speciesRevision: result.speciesRevision,
+    engineVersion: result.engineVersion,
+    action: result.action,
+    stage: result.stage,
+    season: result.season,
+    observedOn: result.date,
+    input: input as unknown as Record<string, unknown>,
+    result: result as unknown as Record<string, unknown>,
+    note: note ?? '',
+    visibility: visibility ?? 'private',
+    createdAt: new Date(),
+  });
+  return { id, url: answerUrl(id), ...result };
+}
+
+function encodeCursor(createdAt: Date, id: string) {
+  return Buffer.from(`${createdAt.toISOString()}|${id}`).toString('base64url');
+}
+
+function decodeCursor(cursor: string): { createdAt: Date; id: string } {
+  const raw = Buffer.from(cursor, 'base64url').toString('utf8');
+  const [iso, id] = raw.split('|');
+  const createdAt = new Date(iso);
+  if (!id || Number.isNaN(createdAt.getTime()) || !answerIdPattern.test(id)) {
+    throw new AppError('bad_request:cursor', 'The page cursor is not valid.', { cursor: ['Invalid cursor'] });
+  }
+  return { createdAt, id };
+}
+
+/** The user's own answers, newest first, keyset-paginated. */
+export function listOwnAnswers(
+  user: Pick<SessionUser, 'id'>,
+  q: { cursor?: string; species?: string; action?: Action; limit?: number },
+): Promise<{ items: AnswerListItem[]; nextCursor: string | null }> {
+  return listAnswers(eq(answers.userId, user.id), q);
+}
+
+/** Answers shared with the club (anyone's), newest first: what librarians link into notes. */
+export function listSharedAnswers(
+  _viewer: Pick<SessionUser, 'id'>,
+  q: { cursor?: string; species?: string; action?: Action; limit?: number },
+): Promise<{ items: AnswerListItem[]; nextCursor: string | null }> {
+  return listAnswers(eq(answers.visibility, 'club'), q);
+}
+
+async function listAnswers(
+  scope: SQL,
+  q: { cursor?: string; species?: string; action?: Action; limit?: number },
+): Promise<{ items: AnswerListItem[]; nextCursor: string | null }> {
+  const limit = q.limit ?? 20;
+  const conds = [scope];
+  if (q.species) conds.push(eq(answers.speciesSlug, q.species));
+  if (q.action) conds.push(eq(answers.action, q.action));
+  if (q.cursor) {
+    const c = decodeCursor(q.cursor);
+    conds.push(sql`(${answers.createdAt}, ${answers.id}) < (${c.createdAt.toISOString()}::timestamptz, ${c.id})`);
+  }
+  const db = await getDb();
+  const rows = await db
+    .select({
+      id: answers.id, speciesSlug: answers.speciesSlug, action: answers.action, stage: answers.stage, season: answers.season,
+      observedOn: answers.observedOn, result: answers.result, note: answers.note, followUp: answers.followUp,
+      visibility: answers.visibility, createdAt: answers.createdAt, askerName: users.name,
+    })
+    .from(answers)
+    .innerJoin(users, eq(users.id, answers.userId))
+    .where(and(...conds))
+    .orderBy(desc(answers.createdAt), desc(answers.id))
+    .limit(limit + 1);
+  const page = rows.slice(0, limit);
+  const items = page.map((r) => {
+    const res = r.result as unknown as WizardResult;
+    return {
+      id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: res.speciesName ?? r.speciesSlug,
+      action: r.action as Action, stage: r.stage, season: r.season, observedOn: r.observedOn, headline: res.headline ?? r.action,
+      note: r.note, followUp: r.followUp, visibility: r.visibility, createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName),
+    };
+  });
+  const last = page[page.length - 1];
+  return { items, nextCursor: rows.length > limit && last ? encodeCursor(last.createdAt, last.id) : null };
+}
+
+/** One answer, if the viewer may see it (owner, or shared with the club); otherwise null. */
+export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto | null> {
+  if (!answerIdPattern.test(id) || !viewer) return null;
+  const db = await getDb();
+  const [r] = await db
+    .select({
+      id: answers.id, userId: answers.userId, treeId: answers.treeId, speciesSlug: answers.speciesSlug,
+      speciesRevision: answers.speciesRevision, engineVersion: answers.engineVersion, action: answers.action,
+      stage: answers.stage, season: answers.season, observedOn: answers.observedOn, input: answers.input,
+      result: answers.result, note: answers.note, followUp: answers.followUp, visibility: answers.visibility,
+      createdAt: answers.createdAt, askerName: users.name,
+    })
+    .from(answers)
+    .innerJoin(users, eq(users.id, answers.userId))
+    .where(and(eq(answers.id, id), visibleTo(viewer)))
+    .limit(1);
+  if (!r) return null;
+  const result = r.result as unknown as WizardResult;
+  return {
+    id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: result.speciesName ?? r.speciesSlug,
+    speciesRevision: r.speciesRevision, engineVersion: r.engineVersion, action: r.action as Action, stage: r.stage,
+    season: r.season, observedOn: r.observedOn, treeId: r.userId === viewer.id ? r.treeId : null,
+    input: r.input as unknown as WizardInput, result, note: r.note, followUp: r.followUp, visibility: r.visibility,
+    createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName), isOwner: r.userId === viewer.id,
+  };
+}
+
+/** Owner-only changes. Someone who can see a shared answer but does not own it gets 403; anyone else 404. */
+export async function updateAnswer(
+  user: Pick<SessionUser, 'id'>,
+  id: string,
+  patch: { followUp?: string; note?: string; visibility?: 'private' | 'club' },
+): Promise<AnswerDto> {
+  const db = await getDb();
+  const rows = answerIdPattern.test(id)
+    ? await db.update(answers).set(patch).where(and(eq(answers.id, id), eq(answers.userId, user.id))).returning({ id: answers.id })
+    : [];
+  if (!rows.length) await refuse(id, user);
+  return (await getAnswer(id, user))!;
+}
+
+export async function deleteAnswer(user: Pick<SessionUser, 'id'>, id: string): Promise<void> {
+  const db = await getDb();
+  const rows = answerIdPattern.test(id)
+    ? await db.delete(answers).where(and(eq(answers.id, id), eq(answers.userId, user.id))).returning({ id: answers.id })
+    : [];
+  if (!rows.length) await refuse(id, user);
+}
+
+async function refuse(id: string, user: Pick<SessionUser, 'id'>): Promise<never> {
+  const visible = await getAnswer(id, user);
+  if (visible) throw new AppError('forbidden:answer', 'Only the person who asked can change this answer.');
+  throw new AppError('not_found:answer', 'No such answer.');
+}
+
+export interface RerunDto {
+  answerId: string;
+  stored: WizardResult;
+  current: WizardResult | null;
+  comparison: ResultComparison | null;
+  speciesMissing: boolean;
+}
+
+/** Re-run a stored answer's inputs with today's engine and species data, and compare. */
+export async function rerunAnswer(id: string, viewer: Viewer): Promise<RerunDto | null> {
+  const a = await getAnswer(id, viewer);
+  if (!a) return null;
+  try {
+    const { result } = await runWizard(a.input);
+    return { answerId: a.id, stored: a.result, current: result, comparison: compareResults(a.result, result), speciesMissing: false };
+  } catch (e) {
+    if (e instanceof AppError && e.kind === 'not_found') {
+      return { answerId: a.id, stored: a.result, current: null, comparison: null, speciesMissing: true };
+    }
+    throw e;
+  }
+}
+
+export interface AnswerPreview {
+  id: string;
+  action: Action;
+  speciesSlug: string;
+  speciesName: string;
+  observedOn: string;
+  askerName: string;
+}
+
+/** For answer links in notes and trees: a small preview, or null when missing or not visible. */
+export async function getAnswerPreview(id: string, viewer: Viewer): Promise<AnswerPreview | null> {
+  if (!answerIdPattern.test(id) || !viewer) return null;
+  const db = await getDb();
+  const [r] = await db
+    .select({
+      id: answers.id, action: answers.action, speciesSlug: answers.speciesSlug, observedOn: answers.observedOn,
+      speciesName: sql<string | null>`${answers.result} ->> 'speciesName'`, askerName: users.name,
+    })
+    .from(answers)
+    .innerJoin(users, eq(users.id, answers.userId))
+    .where(and(eq(answers.id, id), visibleTo(viewer)))
+    .limit(1);
+  if (!r) return null;
+  return {
+    id: r.id, action: r.action as Action, speciesSlug: r.speciesSlug, speciesName: r.speciesName ?? r.speciesSlug,
+    observedOn: r.observedOn, askerName: asker(r.askerName),
+  };
+}

@@ -1,0 +1,74 @@
+import { z } from 'zod';
+import {
+  branchingLevels, containerShapes, hemispheres, healthLevels, positions, shootStates, actions,
+} from '@/lib/wizard/types';
+import { parseIsoDate } from '@/lib/wizard/season';
+import { slugSchema } from './species';
+
+export const containerSchema = z
+  .object({
+    shape: z.enum(containerShapes),
+    lengthCm: z.number().positive().max(300),
+    widthCm: z.number().positive().max(300).optional(),
+  })
+  .refine((c) => c.shape === 'round' || c.widthCm !== undefined, {
+    error: 'A rectangular or oval pot needs its width.',
+    path: ['widthCm'],
+  });
+
+export const isoDateSchema = z
+  .string()
+  .refine((s) => parseIsoDate(s) !== null, { error: 'Give a real date as YYYY-MM-DD.' });
+
+export const evaluateBodySchema = z
+  .object({
+    species: slugSchema,
+    branching: z.enum(branchingLevels),
+    date: isoDateSchema,
+    hemisphere: z.enum(hemispheres).optional(),
+    latitude: z.number().min(-90).max(90).optional(),
+    shoot: z.enum(shootStates),
+    position: z.enum(positions).optional(),
+    health: z.enum(healthLevels),
+    recentlyCollected: z.boolean().optional(),
+    backBuds: z.boolean().optional(),
+    container: containerSchema.optional(),
+  })
+  // Position against the silhouette decides refinement; development does not ask it.
+  .refine((b) => b.branching !== 'tertiary' || b.position !== undefined, {
+    error: 'Say where the shoot is against the silhouette.',
+    path: ['position'],
+  });
+
+export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
+
+export const visibilities = ['private', 'club'] as const;
+
+export const saveAnswerSchema = z.intersection(
+  evaluateBodySchema,
+  z.object({
+    treeId: z.string().trim().min(1).max(64).optional(),
+    note: z.string().trim().max(2000).optional(),
+    visibility: z.enum(visibilities).optional(),
+  }),
+);
+
+export type SaveAnswerBody = z.infer<typeof saveAnswerSchema>;
+
+export const patchAnswerSchema = z
+  .object({
+    followUp: z.string().trim().max(4000).optional(),
+    note: z.string().trim().max(2000).optional(),
+    visibility: z.enum(visibilities).optional(),
+  })
+  .strict()
+  .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one of followUp, note, visibility.' });
+
+export const listAnswersQuerySchema = z.object({
+  cursor: z.string().max(200).optional(),
+  species: slugSchema.optional(),
+  action: z.enum(actions).optional(),
+  limit: z.coerce.number().int().min(1).max(100).optional(),
+  /** `mine` (default): your own answers; `club`: everyone's answers shared with the club. */
+  scope: z.enum(['mine', 'club']).optional(),
+});

@@ -1,0 +1,104 @@
+// The wizard's vocabulary: what a grower tells us and what the engine answers.
+// Shared by the engine, the machine, the API schema and the answer log.
+
+export const branchingLevels = ['primary', 'secondary', 'tertiary'] as const;
+export const shootStates = ['dormant-bud', 'candle-extending', 'needles-opening', 'needles-hardened'] as const;
+export const positions = ['beyond-silhouette', 'at-silhouette', 'interior'] as const;
+export const healthLevels = ['strong', 'average', 'weak'] as const;
+export const hemispheres = ['north', 'south'] as const;
+export const containerShapes = ['round', 'rectangle', 'oval'] as const;
+export const actions = ['pinch', 'prune', 'let-grow', 'decandle', 'wait'] as const;
+export const stages = ['development', 'refinement', 'recovery'] as const;
+export const seasons = ['winter', 'spring', 'summer', 'autumn'] as const;
+
+export type Branching = (typeof branchingLevels)[number];
+export type ShootState = (typeof shootStates)[number];
+export type Position = (typeof positions)[number];
+export type Health = (typeof healthLevels)[number];
+export type Hemisphere = (typeof hemispheres)[number];
+export type ContainerShape = (typeof containerShapes)[number];
+export type Action = (typeof actions)[number];
+export type Stage = (typeof stages)[number];
+export type Season = (typeof seasons)[number];
+
+export interface ContainerInput {
+  shape: ContainerShape;
+  /** Diameter for a round pot; the long side (or long axis) otherwise. */
+  lengthCm: number;
+  widthCm?: number;
+}
+
+export interface WizardInput {
+  species: string;
+  branching: Branching;
+  /** ISO date of the observation; the context's "today" when absent. */
+  date?: string;
+  hemisphere?: Hemisphere;
+  latitude?: number;
+  shoot: ShootState;
+  /** Only asked in refinement; development ignores it. */
+  position?: Position;
+  health: Health;
+  recentlyCollected?: boolean;
+  backBuds?: boolean;
+  container?: ContainerInput;
+}
+
+export interface WizardContext {
+  /** The club setting, used when the input names neither hemisphere nor latitude. */
+  hemisphere: Hemisphere;
+  latitude: number;
+  /** ISO date. */
+  today: string;
+}
+
+export interface Reason {
+  rule: string;
+  text: string;
+  source: string;
+}
+
+export interface Caution {
+  text: string;
+  source: string;
+}
+
+export interface FertilizerPlan {
+  feedNow: boolean;
+  window: string;
+  purpose: string;
+  piles: number | null;
+  pelletsPerPile: { min: number; max: number } | null;
+  foliar: boolean;
+  placement: string;
+  /** Soil surface in cm² when a container was given. */
+  surfaceCm2: number | null;
+  reasons: Reason[];
+}
+
+export interface DayLength {
+  hours: number;
+  /** The latitude actually used (sign follows the hemisphere). */
+  latitude: number;
+  text: string;
+}
+
+export interface WizardResult {
+  action: Action;
+  stage: Stage;
+  season: Season;
+  keepNeedlePairs: number | null;
+  reasons: Reason[];
+  cautions: Caution[];
+  fertilizer: FertilizerPlan;
+  engineVersion: string;
+  speciesRevision: number;
+  // Beyond the fixed contract: what the answer screen also shows.
+  headline: string;
+  watch: string[];
+  hemisphere: Hemisphere;
+  dayLength: DayLength;
+  date: string;
+  speciesSlug: string;
+  speciesName: string;
+}
