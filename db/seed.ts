@@ -4,6 +4,7 @@ import bcrypt from 'bcryptjs';
 import type { Db } from './open';
 import { clubSettings, users, type Role } from './schema';
 import { seedSpecies } from './seed-species';
+import { seedRecord } from './seed-record';
 
 // The demo club is invented: a riverside pine study group with invented members.
 export const DEMO_PASSWORD = 'candlewise-demo';
@@ -35,7 +36,7 @@ async function seedSettings(db: Db) {
 }
 
 /** Further seeders (species, demo trees and answers, notes) register here in order. */
-export const seeders: Seeder[] = [seedUsers, seedSettings, (db) => seedSpecies(db)];
+export const seeders: Seeder[] = [seedUsers, seedSettings, (db) => seedSpecies(db), seedRecord];
 
 /** Idempotent: running it twice leaves the same rows. */
 export async function seed(db: Db) {

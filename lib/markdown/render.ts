@@ -3,8 +3,9 @@ import remarkGfm from 'remark-gfm';
 import remarkRehype from 'remark-rehype';
 import rehypeSanitize, { defaultSchema } from 'rehype-sanitize';
 import rehypeStringify from 'rehype-stringify';
-import type { Root as HastRoot, Element } from 'hast';
-import { visit } from 'unist-util-visit';
+import type { Root as HastRoot, Element, ElementContent } from 'hast';
+import { SKIP, visit } from 'unist-util-visit';
+import type { VFile } from 'vfile';
 
 // The one Markdown pipeline of Candlewise (species care notes, meeting notes, digests):
 // remark → remark-gfm → remark-rehype → rehype-sanitize → rehype-stringify.
@@ -40,14 +41,43 @@ export function parseInternalLink(href: string): InternalLink | null {
   return null;
 }
 
+/**
+ * How a recognised link is shown when the caller knows more about its target (meeting notes):
+ * a preview card, or plain text with a note when the target must not be shown (private or gone).
+ * Resolutions are computed by the caller beforehand; the pipeline itself does no I/O.
+ */
+export type LinkResolution =
+  | { state: 'card'; meta: string }
+  | { state: 'unavailable'; note: string };
+
+export interface RenderOptions {
+  resolveLink?: (link: InternalLink) => LinkResolution | undefined;
+}
+
+const text = (value: string) => ({ type: 'text' as const, value });
+const span = (className: string[], children: ElementContent[]): Element => ({ type: 'element', tagName: 'span', properties: { className }, children });
+
+// Runs after the sanitizer: every node built here holds only text (escaped on output) and
+// class names from this file, and keeps the children the sanitizer already passed.
 function markInternalLinks() {
-  return (tree: HastRoot) => {
-    visit(tree, 'element', (node: Element) => {
+  return (tree: HastRoot, file: VFile) => {
+    const resolve = (file.data as { renderOptions?: RenderOptions }).renderOptions?.resolveLink;
+    visit(tree, 'element', (node: Element, index, parent) => {
       if (node.tagName !== 'a' || typeof node.properties?.href !== 'string') return;
       const link = parseInternalLink(node.properties.href);
-      if (link) {
-        // data-* attributes survive the sanitizer only through this class, which the schema allows.
-        node.properties.className = ['internal-link', `internal-${link.type}`];
+      if (!link) return;
+      // data-* attributes survive the sanitizer only through this class, which the schema allows.
+      node.properties.className = ['internal-link', `internal-${link.type}`];
+      const res = resolve?.(link);
+      if (!res) return;
+      if (res.state === 'card') {
+        node.properties.className.push('link-card');
+        node.children = [span(['link-card-title'], node.children), span(['link-card-meta'], [text(res.meta)])];
+        return;
+      }
+      if (parent && typeof index === 'number') {
+        parent.children[index] = span(['link-unavailable'], [...node.children, text(' '), span(['link-note'], [text(res.note)])]);
+        return SKIP;
       }
     });
   };
@@ -60,12 +90,12 @@ const processor = remark()
   .use(markInternalLinks)
   .use(rehypeStringify);
 
-export async function renderMarkdown(source: string): Promise<string> {
-  return String(await processor.process(source));
+export async function renderMarkdown(source: string, options?: RenderOptions): Promise<string> {
+  return String(await processor.process({ value: source, data: { renderOptions: options } }));
 }
 
-export function renderMarkdownSync(source: string): string {
-  return String(processor.processSync(source));
+export function renderMarkdownSync(source: string, options?: RenderOptions): string {
+  return String(processor.processSync({ value: source, data: { renderOptions: options } }));
 }
 
 /** Every internal link in a Markdown source, deduplicated, in order of first appearance. */

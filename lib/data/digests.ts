@@ -1,0 +1,135 @@
+import 'server-only';
+import { and, count, desc, eq } from 'drizzle-orm';
+import { getDb } from '@/db/client';
+import { digestSends, notes, users } from '@/db/schema';
+import { AppError } from '@/lib/errors';
+import { env } from '@/lib/env';
+import { sendMail } from '@/lib/mail/transport';
+import { renderDigest } from '@/lib/mail/digest';
+import { createUnsubscribeToken, verifyUnsubscribeToken } from '@/lib/mail/unsubscribe';
+import { canWriteNotes, getNote } from '@/lib/data/notes';
+import { renderNoteWithLinks } from '@/lib/data/note-render';
+import { getClubSettings } from '@/lib/data/settings';
+import type { SessionUser } from '@/lib/auth/session';
+
+// The e-mail digest: a published note sent to every active member who opted in, one message
+// each (each carries its own unsubscribe link), every send recorded in digest_sends.
+
+export interface DigestSendDto {
+  sentAt: string;
+  recipients: number;
+  senderName: string;
+}
+
+/** A second send of the same note needs `{ confirm: true }`; the 409 says when it last went out. */
+export class DigestAlreadySentError extends AppError {
+  constructor(readonly previous: DigestSendDto) {
+    super('conflict:digest_already_sent', `This note was already sent on ${previous.sentAt.slice(0, 10)} to ${previous.recipients} members. Send it again?`);
+  }
+  override toBody() {
+    const body = super.toBody();
+    return { error: { ...body.error, previous: this.previous } };
+  }
+}
+
+function requireWriter(actor: SessionUser) {
+  if (!canWriteNotes(actor)) throw new AppError('forbidden:notes', 'Only librarians and administrators send meeting notes.');
+}
+
+export function unsubscribeUrlFor(userId: string, now = Date.now()): string {
+  const token = createUnsubscribeToken(userId, env.NEXTAUTH_SECRET_VALUE, now);
+  return `${new URL(env.NEXTAUTH_URL).origin}/unsubscribe?token=${encodeURIComponent(token)}`;
+}
+
+async function sendsOf(noteId: number): Promise<DigestSendDto[]> {
+  const db = await getDb();
+  const rows = await db
+    .select({ sentAt: digestSends.sentAt, recipients: digestSends.recipients, senderName: users.name })
+    .from(digestSends)
+    .leftJoin(users, eq(users.id, digestSends.senderId))
+    .where(eq(digestSends.noteId, noteId))
+    .orderBy(desc(digestSends.sentAt), desc(digestSends.id));
+  return rows.map((r) => ({ sentAt: r.sentAt.toISOString(), recipients: r.recipients, senderName: r.senderName?.trim() || 'A former member' }));
+}
+
+const optedIn = and(eq(users.digestOptIn, true), eq(users.disabled, false));
+
+export async function digestStatus(actor: SessionUser, slug: string): Promise<{ sends: DigestSendDto[]; optedIn: number; published: boolean }> {
+  requireWriter(actor);
+  const note = await getNote(actor, slug);
+  const db = await getDb();
+  const [{ n }] = await db.select({ n: count() }).from(users).where(optedIn);
+  return { sends: await sendsOf(note.id), optedIn: n, published: note.status === 'published' };
+}
+
+export async function sendNoteDigest(
+  actor: SessionUser,
+  slug: string,
+  opts: { confirm?: boolean } = {},
+): Promise<{ sentAt: string; recipients: number; failed: number }> {
+  requireWriter(actor);
+  const note = await getNote(actor, slug);
+  if (note.status !== 'published') {
+    throw new AppError('conflict:note_not_published', 'Publish the note before sending it to members.');
+  }
+  const db = await getDb();
+  const recipients = await db.select({ id: users.id, email: users.email }).from(users).where(optedIn).orderBy(users.email);
+
+  // Claim the send in a short transaction (the note row locked, so two librarians clicking at
+  // once cannot both send); the mail goes out after it commits, never while a lock is held.
+  const sendId = await db.transaction(async (tx) => {
+    await tx.select({ id: notes.id }).from(notes).where(eq(notes.id, note.id)).for('update');
+    const [prev] = await tx
+      .select({ sentAt: digestSends.sentAt, recipients: digestSends.recipients, senderName: users.name })
+      .from(digestSends)
+      .leftJoin(users, eq(users.id, digestSends.senderId))
+      .where(eq(digestSends.noteId, note.id))
+      .orderBy(desc(digestSends.sentAt), desc(digestSends.id))
+      .limit(1);
+    if (prev && opts.confirm !== true) {
+      throw new DigestAlreadySentError({ sentAt: prev.sentAt.toISOString(), recipients: prev.recipients, senderName: prev.senderName?.trim() || 'A former member' });
+    }
+    const [row] = await tx.insert(digestSends).values({ noteId: note.id, senderId: actor.id, recipients: recipients.length }).returning({ id: digestSends.id, sentAt: digestSends.sentAt });
+    return row;
+  });
+
+  const [settings, { html, resolutions }] = await Promise.all([getClubSettings(), renderNoteWithLinks(note.body)]);
+  const baseUrl = new URL(env.NEXTAUTH_URL).origin;
+
+  let sent = 0;
+  let failed = 0;
+  for (const r of recipients) {
+    const unsubscribeUrl = unsubscribeUrlFor(r.id);
+    const mail = renderDigest({ clubName: settings.clubName, baseUrl, note, html, resolutions, unsubscribeUrl });
+    try {
+      await sendMail({
+        to: r.email,
+        ...mail,
+        headers: {
+          'List-Unsubscribe': `<${unsubscribeUrl.replace('/unsubscribe?', '/api/unsubscribe?')}>`,
+          'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
+        },
+      });
+      sent++;
+    } catch (e) {
+      failed++;
+      console.error('[candlewise] digest mail failed', e instanceof Error ? e.message : e);
+    }
+  }
+  await db.update(digestSends).set({ recipients: sent }).where(eq(digestSends.id, sendId.id));
+  return { sentAt: sendId.sentAt.toISOString(), recipients: sent, failed };
+}
+
+/** Turn the digest off for the member a valid token names; no sign-in needed. */
+export async function unsubscribeWithToken(token: string): Promise<{ email: string }> {
+  const check = verifyUnsubscribeToken(token, env.NEXTAUTH_SECRET_VALUE);
+  if (!check.ok) {
+    throw check.reason === 'expired'
+      ? new AppError('bad_request:token_expired', 'This link has expired. Sign in and turn the e-mails off on your profile page.', { token: ['Expired'] })
+      : new AppError('bad_request:token', 'This link is not valid. Sign in and turn the e-mails off on your profile page.', { token: ['Not valid'] });
+  }
+  const db = await getDb();
+  const [u] = await db.update(users).set({ digestOptIn: false }).where(eq(users.id, check.userId)).returning({ email: users.email });
+  if (!u) throw new AppError('bad_request:token', 'This link is not valid any more.', { token: ['Unknown member'] });
+  return { email: u.email };
+}

@@ -1,0 +1,61 @@
+import 'server-only';
+import { and, desc, eq, gte, ilike, lte, or, sql, type SQL } from 'drizzle-orm';
+import { getDb } from '@/db/client';
+import { answers, species, users } from '@/db/schema';
+import { escapeLike } from '@/lib/data/users';
+import { AppError } from '@/lib/errors';
+import { canWriteNotes } from '@/lib/data/notes';
+import type { SessionUser } from '@/lib/auth/session';
+import type { LinkableAnswersQuery } from '@/lib/validation/notes';
+
+// The note editor's picker: answers shared with the club, searched by species, action, member
+// and date. Private answers never appear here, whoever searches.
+
+export interface LinkableAnswerDto {
+  id: string;
+  url: string;
+  action: string;
+  speciesSlug: string;
+  speciesName: string;
+  observedOn: string;
+  askerName: string;
+}
+
+export async function searchLinkableAnswers(actor: Pick<SessionUser, 'role'>, q: LinkableAnswersQuery): Promise<LinkableAnswerDto[]> {
+  if (!canWriteNotes(actor)) throw new AppError('forbidden:notes', 'Only librarians and administrators write meeting notes.');
+  const conds: (SQL | undefined)[] = [eq(answers.visibility, 'club')];
+  if (q.species) {
+    const like = `%${escapeLike(q.species)}%`;
+    conds.push(or(ilike(answers.speciesSlug, like), ilike(species.botanicalName, like), sql`${species.commonNames}::text ilike ${like}`));
+  }
+  if (q.action) conds.push(eq(answers.action, q.action));
+  if (q.member) conds.push(ilike(users.name, `%${escapeLike(q.member)}%`));
+  if (q.from) conds.push(gte(answers.observedOn, q.from));
+  if (q.to) conds.push(lte(answers.observedOn, q.to));
+  const db = await getDb();
+  const rows = await db
+    .select({
+      id: answers.id,
+      action: answers.action,
+      speciesSlug: answers.speciesSlug,
+      botanicalName: species.botanicalName,
+      commonNames: species.commonNames,
+      observedOn: answers.observedOn,
+      askerName: users.name,
+    })
+    .from(answers)
+    .innerJoin(users, eq(users.id, answers.userId))
+    .leftJoin(species, eq(species.slug, answers.speciesSlug))
+    .where(and(...conds))
+    .orderBy(desc(answers.observedOn), desc(answers.createdAt))
+    .limit(30);
+  return rows.map((r) => ({
+    id: r.id,
+    url: `/answers/${r.id}`,
+    action: r.action,
+    speciesSlug: r.speciesSlug,
+    speciesName: r.commonNames?.[0] ?? r.botanicalName ?? r.speciesSlug,
+    observedOn: r.observedOn,
+    askerName: r.askerName?.trim() || 'A club member',
+  }));
+}

@@ -1,0 +1,13 @@
+import { z } from 'zod';
+
+const itemId = z.string().regex(/^[A-Za-z0-9_-]{6,40}$/, { error: 'Not a valid id.' });
+
+/** Which item a photo belongs to: exactly one of a tree or an answer. */
+export const photoTargetSchema = z
+  .object({ treeId: itemId.optional(), answerId: itemId.optional() })
+  .refine((t) => !!t.treeId !== !!t.answerId, { error: 'Give either treeId or answerId.', path: ['treeId'] })
+  .transform((t) => (t.treeId ? { treeId: t.treeId } : { answerId: t.answerId! }));
+
+export const photoIdSchema = z.string().regex(/^[A-Za-z0-9_-]{8,40}$/);
+
+export const photoSizeSchema = z.object({ size: z.enum(['full', 'thumb']).default('full') });
