@@ -71,3 +71,41 @@ test('no vector of the corpora runs once rendered, in any Markdown construct', a
   expect(await p.evaluate(() => (window as unknown as { __calls: string[] }).__calls)).toEqual([]);
   expect(dialogs).toEqual([]);
 });
+
+test('published meeting notes holding every vector run none of them, for a member reading them', async ({ page: p, baseURL }) => {
+  test.setTimeout(300_000);
+  const { signedIn } = await import('../../support/http-client');
+  const { SignInPage } = await import('../pages/auth');
+  const librarian = await signedIn(baseURL!, 'librarian@candlewise.test');
+  // Each construct's vectors, packed into notes under the body limit.
+  const bodies: string[] = [];
+  for (const [name, wrap] of Object.entries(constructs)) {
+    let body = '';
+    for (const v of loadVectors()) {
+      const part = `\n\n${wrap(v.payload)}\n\n---\n`;
+      if (body.length + part.length > 90_000) {
+        bodies.push(body);
+        body = '';
+      }
+      body += part;
+    }
+    bodies.push(`<!-- ${name} -->${body}`);
+  }
+  const slugs: string[] = [];
+  for (const [i, body] of bodies.entries()) {
+    const r = await librarian.json('/api/notes', 'POST', { title: `Sanitizer check ${i + 1}`, meetingDate: '2026-12-01', body, status: 'published' });
+    expect(r.status, JSON.stringify(r.body).slice(0, 300)).toBe(201);
+    slugs.push(r.body.note.slug);
+  }
+
+  const dialogs = await hookDialogs(p);
+  await new SignInPage(p).withPassword('member@candlewise.test');
+  for (const slug of slugs) {
+    const res = await p.goto(`/notes/${slug}`);
+    expect(res?.status()).toBe(200);
+    await poke(p);
+    expect(await p.evaluate(() => (window as unknown as { __calls: string[] }).__calls), slug).toEqual([]);
+  }
+  expect(dialogs).toEqual([]);
+  await p.screenshot({ path: 'test-results/screens/xss-note.png' });
+});

@@ -1,5 +1,6 @@
 import { Client, demoEmail, DEMO_PASSWORD, unique, type Actor, type Fixtures } from './fixtures';
 import { atLeast, every, pageAtLeast, pageSignedIn, signedIn, type RouteRow } from './matrix-types';
+import { clubRows } from './route-matrix-club';
 
 // THE role × route matrix: every route handler (each exported method of each app/**/route.ts),
 // every page and every server action, with the status each actor must get. The walk in
@@ -102,10 +103,11 @@ export const routeMatrix: RouteRow[] = [
   { route: 'GET /profile', file: 'app/(club)/profile/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/profile' }), expect: pageSignedIn },
   { route: 'GET /admin', file: 'app/(club)/admin/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/admin' }), expect: pageAtLeast('admin') },
   { route: 'GET /admin/outbox', file: 'app/(club)/admin/outbox/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/admin/outbox' }), expect: pageAtLeast('admin') },
-  { route: 'GET /species', file: 'app/(club)/species/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/species' }), expect: every(200) },
+  { route: 'GET /species', file: 'app/(club)/species/(browse)/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/species' }), expect: every(200) },
   { route: 'GET /ask', file: 'app/(club)/ask/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/ask' }), expect: every(200) },
-  { route: 'GET /answers', file: 'app/(club)/answers/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/answers' }), expect: every(200) },
-  { route: 'GET /trees', file: 'app/(club)/trees/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/trees' }), expect: every(200) },
-  { route: 'GET /notes', file: 'app/(club)/notes/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/notes' }), expect: every(200) },
-];
+  { route: 'GET /answers', file: 'app/(club)/answers/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/answers' }), expect: pageSignedIn },
+  { route: 'GET /trees', file: 'app/(club)/trees/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/trees' }), expect: pageSignedIn },
+  { route: 'GET /notes', file: 'app/(club)/notes/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/notes' }), expect: pageSignedIn },
 
+  ...clubRows,
+];
