@@ -1,6 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
 import { renderMarkdown } from '../../../lib/markdown/render';
 import { constructs, loadVectors } from '../../support/xss-corpus';
+import { signedIn } from '../../support/http-client';
+import { SignInPage } from '../pages/auth';
 
 // The rendered corpora in a real Chromium with alert/confirm/prompt/print hooked: nothing may
 // call them. The page is served from a stand-in origin with no CSP, so the sanitizer alone must
@@ -74,8 +76,6 @@ test('no vector of the corpora runs once rendered, in any Markdown construct', a
 
 test('published meeting notes holding every vector run none of them, for a member reading them', async ({ page: p, baseURL }) => {
   test.setTimeout(300_000);
-  const { signedIn } = await import('../../support/http-client');
-  const { SignInPage } = await import('../pages/auth');
   const librarian = await signedIn(baseURL!, 'librarian@candlewise.test');
   // Each construct's vectors, packed into notes under the body limit.
   const bodies: string[] = [];
