@@ -59,13 +59,18 @@ function snapshotOf(child: Child): Snapshot | null {
   return { ids: new Set(list ? list.split(',') : []), viaIndex, viaHeap };
 }
 
-function checkSnapshot(snap: Snapshot, acked: Map<string, number>, where: string) {
+const GROUP_ROW = /^c\d+-\d+-\d+$/;
+
+function checkSnapshot(snap: Snapshot, acked: Map<string, number>, singles: Set<string>, where: string) {
   // Every acknowledged commit survived …
   const lost = [...acked].flatMap(([g, size]) => Array.from({ length: size }, (_, i) => `${g}-${i}`)).filter((id) => !snap.ids.has(id));
   expect(lost, `${where}: acknowledged rows missing`).toEqual([]);
+  const lostSingles = [...singles].filter((id) => !snap.ids.has(id));
+  expect(lostSingles, `${where}: acknowledged saveAnswer rows missing`).toEqual([]);
   // … no commit survived in part …
   const groups = new Map<string, number>();
   for (const id of snap.ids) {
+    if (!GROUP_ROW.test(id)) continue;
     const g = id.slice(0, id.lastIndexOf('-'));
     groups.set(g, (groups.get(g) ?? 0) + 1);
   }
@@ -86,6 +91,7 @@ describe('crash safety of the data directory', () => {
     expect((await init.exited).code, init.stderr()).toBe(0);
 
     const acked = new Map<string, number>();
+    const singles = new Set<string>();
     let killedWhileOpening = 0;
     let killedWhileWriting = 0;
     let verified = 0;
@@ -108,12 +114,14 @@ describe('crash safety of the data directory', () => {
 
       const snap = snapshotOf(child);
       if (snap) {
-        checkSnapshot(snap, acked, `cycle ${cycle}`);
+        checkSnapshot(snap, acked, singles, `cycle ${cycle}`);
         verified++;
       }
       for (const l of child.lines) {
         const m = /^ack (\S+) (\d+)$/.exec(l);
         if (m) acked.set(m[1], Number(m[2]));
+        const one = /^ack1 (\S+)$/.exec(l);
+        if (one) singles.add(one[1]);
       }
     }
 
@@ -122,12 +130,14 @@ describe('crash safety of the data directory', () => {
     expect((await last.exited).code, last.stderr()).toBe(0);
     const snap = snapshotOf(last);
     expect(snap).not.toBeNull();
-    checkSnapshot(snap!, acked, 'final open');
+    checkSnapshot(snap!, acked, singles, 'final open');
     expect(acked.size).toBeGreaterThan(CYCLES);
+    expect(singles.size).toBeGreaterThan(CYCLES);
     console.log(
       `[crash] ${CYCLES} cycles in ${((Date.now() - started) / 1000).toFixed(1)} s (seed ${SEED}): ` +
         `${killedWhileOpening} kills while opening, ${killedWhileWriting} while writing, ` +
-        `${verified} reopenings checked, ${acked.size} acknowledged commits, ${snap!.ids.size} rows on disk`,
+        `${verified} reopenings checked, ${acked.size + singles.size} acknowledged commits ` +
+        `(${singles.size} through saveAnswer), ${snap!.ids.size} rows on disk`,
     );
   }, CYCLES * 10_000 + 60_000);
 

@@ -1,6 +1,7 @@
 // A child process for the crash-safety suite. It opens a PGlite directory through db/open.ts
 // (lock, interrupted-initialisation marker, migrations), reports what it finds, then writes
-// answers in small transactions and prints one `ack` line per commit the database confirmed.
+// answers — in turn through the data layer's saveAnswer (the wizard's own write) and as
+// multi-row transactions — printing one `ack` line per commit the database confirmed.
 // The parent kills it with SIGKILL at random moments and checks the next opening.
 //
 //   tsx --conditions=react-server tests/crash/writer.ts write <dir> <cycle>
@@ -10,7 +11,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { sql } from 'drizzle-orm';
 import { openDatabase, type Db } from '../../db/open';
-import { answers, users } from '../../db/schema';
+import { setDbHandle } from '../../db/client';
+import { answers, species, users } from '../../db/schema';
+import { seed } from '../../db/seed';
 
 const CRASH_USER_ID = 'crash-writer-user';
 const migrationsFolder = path.resolve(__dirname, '../../db/migrations');
@@ -58,10 +61,21 @@ function answerRow(id: string) {
   };
 }
 
+const crashUser = { id: CRASH_USER_ID, name: 'Crash writer', email: 'crash-writer@candlewise.test', role: 'member' as const, tokenVersion: 0 };
+
 async function write(db: Db, cycle: string) {
   await ensureUser(db);
+  const { saveAnswer } = await import('../../lib/data/answers');
+  const [sp] = await db.select({ slug: species.slug }).from(species).where(sql`${species.publishedRevision} is not null`).limit(1);
+  const body = { species: sp.slug, branching: 'tertiary', date: '2026-06-15', shoot: 'candle-extending', position: 'at-silhouette', health: 'strong' } as const;
   say('writing');
   for (let n = 0; ; n++) {
+    if (n % 2 === 0) {
+      // The wizard's own write: one answer, id chosen by the data layer.
+      const saved = await saveAnswer(crashUser, { ...body, note: `cycle ${cycle}` });
+      say(`ack1 ${saved.id}`);
+      continue;
+    }
     // A commit of one to three rows: all of a group or none of it may survive a kill.
     const size = 1 + (n % 3);
     const group = `c${cycle}-${n}`;
@@ -75,8 +89,12 @@ async function write(db: Db, cycle: string) {
 async function main() {
   const [mode, dir, cycle = '0'] = process.argv.slice(2);
   const handle = await openDatabase({ pgliteDir: dir, migrationsFolder });
+  setDbHandle(handle);
   say(`ready ${process.pid}`);
   if (mode === 'open') {
+    // The demo data (species above all, which the wizard reads) on a new directory.
+    const [any] = await handle.db.select({ id: species.id }).from(species).limit(1);
+    if (!any) await seed(handle.db);
     await ensureUser(handle.db);
     await report(handle.db);
     await handle.close();
