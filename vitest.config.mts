@@ -23,6 +23,18 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          // Real child processes killed with SIGKILL against PGlite directories (tests/crash).
+          name: 'crash',
+          include: ['tests/crash/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 120_000,
+          hookTimeout: 60_000,
+          fileParallelism: false,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
           environment: 'node',

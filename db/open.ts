@@ -10,6 +10,8 @@ export type Db = PgDatabase<PgQueryResultHKT, typeof schema>;
 export interface DbHandle {
   db: Db;
   kind: 'pglite' | 'postgres';
+  /** The PGlite instance itself (backups dump its data directory); absent on PostgreSQL. */
+  pglite?: import('@electric-sql/pglite').PGlite;
   close(): Promise<void>;
 }
 
@@ -59,7 +61,7 @@ async function openPglite(dir: string, migrationsFolder: string): Promise<DbHand
     const client = new PGlite();
     const db = drizzle(client, { schema });
     await migrate(db, { migrationsFolder });
-    return { db: db as unknown as Db, kind: 'pglite', close: () => client.close() };
+    return { db: db as unknown as Db, kind: 'pglite', pglite: client, close: () => client.close() };
   }
 
   const abs = path.resolve(dir);
@@ -82,6 +84,7 @@ async function openPglite(dir: string, migrationsFolder: string): Promise<DbHand
     return {
       db: db as unknown as Db,
       kind: 'pglite',
+      pglite: client,
       close: async () => {
         if (closed) return;
         closed = true;

@@ -8,6 +8,7 @@ export NEXT_TELEMETRY_DISABLED=1
 echo "── typecheck";            npm run -s typecheck
 echo "── build";                npm run -s build
 echo "── unit";                 npm run -s test:unit
+echo "── crash safety";         npm run -s test:crash
 echo "── integration (PGlite)"; npm run -s test:integration
 echo "── integration (PostgreSQL)"; bash scripts/with-postgres.sh npm run -s test:integration
 echo "── e2e (Chromium)";       npm run -s test:e2e

@@ -4,8 +4,9 @@
 set -euo pipefail
 
 bin=""
-for d in $(dirname "$(command -v initdb 2>/dev/null || echo /nonexistent/initdb)") /usr/lib/postgresql/*/bin; do
-  if [ -x "$d/initdb" ] && [ -x "$d/pg_ctl" ]; then bin="$d"; break; fi
+# Resolve symlinks (an initdb linked into /usr/local/bin has no createdb beside it).
+for d in $(dirname "$(readlink -f "$(command -v initdb 2>/dev/null || echo /nonexistent/initdb)")") /usr/lib/postgresql/*/bin; do
+  if [ -x "$d/initdb" ] && [ -x "$d/pg_ctl" ] && [ -x "$d/createdb" ]; then bin="$d"; break; fi
 done
 [ -n "$bin" ] || { echo "PostgreSQL server binaries not found: run scripts/setup.sh (installs Debian's postgresql)." >&2; exit 1; }
 

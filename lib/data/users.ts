@@ -135,6 +135,8 @@ export async function getProfile(actor: SessionUser): Promise<UserDto> {
 }
 
 export async function updateProfile(actor: SessionUser, patch: { name?: string; digestOptIn?: boolean }) {
+  // An empty patch changes nothing (and an UPDATE with no columns is an SQL error, not a 500 to show).
+  if (Object.values(patch).every((v) => v === undefined)) return getProfile(actor);
   const db = await getDb();
   const [u] = await db.update(users).set(patch).where(and(eq(users.id, actor.id))).returning(dtoColumns);
   if (!u) throw new AppError('not_found:user');

@@ -78,7 +78,35 @@ export async function parseJson<S extends z.ZodType>(
   return parseWith(schema, data, opts.invalidStatus ?? 422);
 }
 
+/**
+ * The path of the first string (or key) holding a NUL character, or null. PostgreSQL text and
+ * jsonb cannot store U+0000, so such input is refused here rather than failing in the database.
+ * Iterative, so a deeply nested document cannot exhaust the stack.
+ */
+export function findNul(data: unknown): string | null {
+  const stack: [unknown, string][] = [[data, '']];
+  while (stack.length) {
+    const [v, at] = stack.pop()!;
+    if (typeof v === 'string') {
+      if (v.includes('\u0000')) return at || 'body';
+    } else if (Array.isArray(v)) {
+      for (let i = v.length - 1; i >= 0; i--) stack.push([v[i], at ? `${at}.${i}` : String(i)]);
+    } else if (v !== null && typeof v === 'object') {
+      for (const [k, x] of Object.entries(v)) {
+        const p = at ? `${at}.${k}` : k;
+        if (k.includes('\u0000')) return p;
+        stack.push([x, p]);
+      }
+    }
+  }
+  return null;
+}
+
 export function parseWith<S extends z.ZodType>(schema: S, data: unknown, status: 400 | 422 = 422): z.infer<S> {
+  const nul = findNul(data);
+  if (nul !== null) {
+    throw new AppError(status === 400 ? 'bad_request:fields' : 'invalid:fields', 'Some fields are not valid.', { [nul]: ['Must not contain NUL characters.'] });
+  }
   const result = schema.safeParse(data);
   if (!result.success) {
     throw new AppError(status === 400 ? 'bad_request:fields' : 'invalid:fields', 'Some fields are not valid.', fieldErrorsOf(result.error));

@@ -39,6 +39,12 @@ export const profilePatchSchema = z.object({
 export const settingsSchema = z.object({
   clubName: z.string().trim().min(1, { error: 'Give the club a name.' }).max(120),
   hemisphere: z.enum(['north', 'south']),
-  defaultLatitude: z.coerce.number().min(-90, { error: 'Latitude runs from -90 to 90.' }).max(90, { error: 'Latitude runs from -90 to 90.' }),
+  defaultLatitude: z.coerce
+    .number()
+    .min(-90, { error: 'Latitude runs from -90 to 90.' })
+    .max(90, { error: 'Latitude runs from -90 to 90.' })
+    // Stored as a PostgreSQL real, which refuses magnitudes below ~1e-38 (1e-320 was a 500 on
+    // PostgreSQL): a millionth of a degree (about 0.1 m) is all a latitude needs.
+    .transform((v) => Math.round(v * 1e6) / 1e6 + 0),
 });
 export type SettingsInput = z.infer<typeof settingsSchema>;

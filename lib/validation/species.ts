@@ -35,7 +35,8 @@ export const slugSchema = z
   .regex(/^[a-z]+(-[a-z]+)+$/, { error: 'Use the botanical name in kebab case, e.g. pinus-sylvestris.' });
 
 export const mmRange = z
-  .object({ min: z.number().positive().max(500), max: z.number().positive().max(500) })
+  // At least 0.1 mm: stored as PostgreSQL reals, which refuse tiny magnitudes like 1e-320.
+  .object({ min: z.number().min(0.1).max(500), max: z.number().min(0.1).max(500) })
   .refine((r) => r.min <= r.max, { error: 'The minimum must not exceed the maximum.', path: ['max'] });
 
 export const zoneRange = z
@@ -148,7 +149,7 @@ export const speciesFormSchema = speciesCreateSchema;
 
 const optionalEnum = <T extends readonly [string, ...string[]]>(values: T) =>
   z.preprocess((v) => (v === '' ? undefined : v), z.enum(values).optional());
-const optionalMm = z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().positive().max(500).optional());
+const optionalMm = z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().min(0.1).max(500).optional());
 
 /** GET /api/species query. */
 export const speciesListQuerySchema = z.object({

@@ -21,7 +21,8 @@ const isoDate = z.iso.date({ error: 'Use a date like 2026-04-12.' });
 const optionalDate = isoDate.nullable();
 const dimension = z
   .number({ error: 'Give the size in centimetres.' })
-  .positive({ error: 'The size must be more than 0 cm.' })
+  // At least 0.1 cm (a PostgreSQL real refuses tiny magnitudes like 1e-320: that was a 500).
+  .min(0.1, { error: 'The size must be at least 0.1 cm.' })
   .max(400, { error: 'That is larger than any container we know (400 cm at most).' });
 
 export const treeFieldsSchema = z.object({

@@ -11,3 +11,12 @@ export const photoTargetSchema = z
 export const photoIdSchema = z.string().regex(/^[A-Za-z0-9_-]{8,40}$/);
 
 export const photoSizeSchema = z.object({ size: z.enum(['full', 'thumb']).default('full') });
+
+/**
+ * The file name a client sends is never used to store anything (keys are generated), but a name
+ * holding a path, a NUL or another control character is no honest upload — browsers send the
+ * bare file name — so it is refused outright.
+ */
+export function isAcceptableUploadName(name: string): boolean {
+  return name.length > 0 && name.length <= 255 && !/[\/\\\u0000-\u001f\u007f]/.test(name) && name !== '.' && name !== '..';
+}

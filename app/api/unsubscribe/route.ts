@@ -12,7 +12,9 @@ export const POST = route(async (req) => {
   const fromQuery = new URL(req.url).searchParams.get('token');
   let token: unknown = fromQuery;
   if (!fromQuery && /^application\/json\b/i.test(req.headers.get('content-type') ?? '')) {
-    token = ((await req.json().catch(() => ({}))) as { token?: unknown }).token;
+    // Any JSON may arrive here (null, a number, an array): only an object can carry the token.
+    const body: unknown = await req.json().catch(() => null);
+    token = body !== null && typeof body === 'object' ? (body as { token?: unknown }).token : undefined;
   }
   const input = parseWith(tokenSchema, { token }, 400);
   const { email } = await unsubscribeWithToken(input.token);

@@ -5,7 +5,7 @@ import { AppError } from '@/lib/errors';
 import { addPhoto, assertCanAddPhoto, listPhotos } from '@/lib/data/photos';
 import { processPhoto } from '@/lib/uploads/image';
 import { readUploadForm } from '@/lib/uploads/multipart';
-import { photoTargetSchema } from '@/lib/validation/uploads';
+import { isAcceptableUploadName, photoTargetSchema } from '@/lib/validation/uploads';
 
 // GET ?treeId= | ?answerId=: the photos of an item the viewer may see.
 export const GET = route(async (req) => {
@@ -21,6 +21,9 @@ export const POST = route(async (req) => {
   const target = parseWith(photoTargetSchema, { treeId: form.get('treeId') ?? undefined, answerId: form.get('answerId') ?? undefined }, 400);
   const file = form.get('file');
   if (!(file instanceof File)) throw new AppError('bad_request:file', 'Choose a photo to upload.', { file: ['Choose a photo to upload.'] });
+  if (!isAcceptableUploadName(file.name)) {
+    throw new AppError('bad_request:file', 'The file name is not acceptable: send the photo under its plain name.', { file: ['The file name holds a path or control characters.'] });
+  }
   await assertCanAddPhoto(actor, target);
   const processed = await processPhoto(Buffer.from(await file.arrayBuffer()));
   const photo = await addPhoto(actor, target, processed);
