@@ -1,7 +1,8 @@
 'use client';
 import { useMemo, useState } from 'react';
 import useSWR from 'swr';
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { SortableTable } from '@/components/sortable-table';
 import type { UserDto } from '@/lib/data/users';
 import { fetcher, sendJson } from '@/components/fetcher';
 import { roleLabels, type Role } from '@/lib/auth/roles';
@@ -82,34 +83,7 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
       </div>
       <p role="status" className="min-h-6 text-sm text-moss-800">{message}</p>
       <div className="overflow-x-auto rounded-card border border-stone-200 bg-white">
-        <table className="w-full text-left text-sm" data-testid="users-table">
-          <thead className="bg-stone-100">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const sorted = h.column.getIsSorted();
-                  return (
-                    <th key={h.id} scope="col" className="px-3 py-2" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}>
-                      <button type="button" className="font-semibold" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden> {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
-                      </button>
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-t border-stone-200">
-                {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-3 py-2 align-middle">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
-                ))}
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <SortableTable table={table} caption="Members and their roles. Select a column heading to sort." testId="users-table" rowTestId="user-row" />
       </div>
     </div>
   );

@@ -3,8 +3,9 @@ import { useMemo, useState } from 'react';
 import Link from 'next/link';
 import useSWR from 'swr';
 import {
-  createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState,
+  createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState,
 } from '@tanstack/react-table';
+import { SortableTable } from '@/components/sortable-table';
 import type { NoteSummaryDto } from '@/lib/data/notes';
 import { fetcher } from '@/components/fetcher';
 import { formatMeetingDate } from '@/lib/validation/notes';
@@ -72,35 +73,7 @@ export function NotesList({ initial }: { initial: NoteSummaryDto[] }) {
           ))}
         </ul>
         <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
-          <table className="w-full text-left text-sm" data-testid="notes-table">
-            <caption className="sr-only">Meeting notes. Select a column heading to sort.</caption>
-            <thead className="bg-stone-100">
-              {table.getHeaderGroups().map((hg) => (
-                <tr key={hg.id}>
-                  {hg.headers.map((h) => {
-                    const sorted = h.column.getIsSorted();
-                    return (
-                      <th key={h.id} scope="col" className="px-3 py-1" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}>
-                        <button type="button" className="inline-flex min-h-target items-center font-semibold" onClick={h.column.getToggleSortingHandler()}>
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden className="ml-1 inline-block w-3">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
-                        </button>
-                      </th>
-                    );
-                  })}
-                </tr>
-              ))}
-            </thead>
-            <tbody>
-              {table.getRowModel().rows.map((row) => (
-                <tr key={row.id} className="border-t border-stone-200" data-testid="note-row">
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-3 py-1 align-middle">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
-                  ))}
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <SortableTable table={table} caption="Meeting notes. Select a column heading to sort." testId="notes-table" rowTestId="note-row" />
         </div>
         </>
       )}

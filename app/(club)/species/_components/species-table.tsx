@@ -3,7 +3,8 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import Link from 'next/link';
 import { usePathname, useRouter } from 'next/navigation';
 import useSWR from 'swr';
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { SortableTable } from '@/components/sortable-table';
 import { fetcher } from '@/components/fetcher';
 import type { SpeciesListItem, SpeciesListPage } from '@/lib/data/species-list';
 import { buildSpeciesIndex, searchSpecies } from '@/lib/species/search';
@@ -174,41 +175,7 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
         <div className="card text-stone-700">No species match. Try fewer filters or another spelling.</div>
       ) : (
         <div className="overflow-x-auto rounded-card border border-stone-200 bg-white">
-          <table className="w-full text-left text-sm" data-testid="species-table">
-            <caption className="sr-only">Species; select a column heading to sort</caption>
-            <thead className="bg-stone-100 text-stone-800">
-              {table.getHeaderGroups().map((hg) => (
-                <tr key={hg.id}>
-                  {hg.headers.map((h) => {
-                    const dir = h.column.getIsSorted();
-                    const narrow = (h.column.columnDef.meta as { narrowHidden?: boolean } | undefined)?.narrowHidden;
-                    return (
-                      <th key={h.id} scope="col" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'} className={`px-3 py-1 font-semibold ${narrow ? 'hidden sm:table-cell' : ''}`}>
-                        <button type="button" className="inline-flex min-h-target items-center gap-1" onClick={h.column.getToggleSortingHandler()}>
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden className="text-stone-500">{dir === 'asc' ? '▲' : dir === 'desc' ? '▼' : '↕'}</span>
-                        </button>
-                      </th>
-                    );
-                  })}
-                </tr>
-              ))}
-            </thead>
-            <tbody>
-              {table.getRowModel().rows.map((r) => (
-                <tr key={r.id} className="border-t border-stone-200 align-middle" data-testid="species-row">
-                  {r.getVisibleCells().map((c) => {
-                    const narrow = (c.column.columnDef.meta as { narrowHidden?: boolean } | undefined)?.narrowHidden;
-                    return (
-                      <td key={c.id} className={`px-3 py-2 ${narrow ? 'hidden sm:table-cell' : ''}`}>
-                        {flexRender(c.column.columnDef.cell, c.getContext())}
-                      </td>
-                    );
-                  })}
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <SortableTable table={table} caption="Species; select a column heading to sort" testId="species-table" rowTestId="species-row" />
         </div>
       )}
     </div>

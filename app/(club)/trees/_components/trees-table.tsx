@@ -3,8 +3,9 @@ import { useMemo, useState } from 'react';
 import Link from 'next/link';
 import useSWR from 'swr';
 import {
-  createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState,
+  createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState,
 } from '@tanstack/react-table';
+import { SortableTable } from '@/components/sortable-table';
 import type { TreeDto } from '@/lib/data/trees';
 import { fetcher } from '@/components/fetcher';
 import { describeCollected, describeContainer } from '@/lib/trees/describe';
@@ -101,35 +102,7 @@ export function TreesTable({ initial, due }: { initial: TreeDto[]; due: Record<s
       </ul>
     </div>
     <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
-      <table className="w-full min-w-[40rem] text-left text-sm" data-testid="trees-table">
-        <caption className="sr-only">Your trees. Select a column heading to sort.</caption>
-        <thead className="bg-stone-100">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const sorted = h.column.getIsSorted();
-                return (
-                  <th key={h.id} scope="col" className="px-3 py-1" aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}>
-                    <button type="button" className="inline-flex min-h-target items-center font-semibold" onClick={h.column.getToggleSortingHandler()}>
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden className="ml-1 inline-block w-3">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
-                    </button>
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-t border-stone-200" data-testid="tree-row">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-3 py-1 align-middle">{flexRender(cell.column.columnDef.cell, cell.getContext())}</td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <SortableTable table={table} caption="Your trees. Select a column heading to sort." testId="trees-table" rowTestId="tree-row" className="min-w-[40rem]" />
     </div>
     </>
   );
