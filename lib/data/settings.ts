@@ -2,6 +2,7 @@ import 'server-only';
 import { getDb } from '@/db/client';
 import { clubSettings } from '@/db/schema';
 import { AppError } from '@/lib/errors';
+import { cachedRead, invalidateReads } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SettingsInput } from '@/lib/validation/auth';
 
@@ -16,6 +17,10 @@ const DEFAULTS: ClubSettingsDto = { clubName: 'Our bonsai club', hemisphere: 'no
 /** Club settings are readable by everyone (the wizard uses them, signed in or not). */
 export async function getClubSettings(): Promise<ClubSettingsDto> {
   const db = await getDb();
+  return cachedRead(db, 'settings', 'club', () => loadClubSettings(db));
+}
+
+async function loadClubSettings(db: Awaited<ReturnType<typeof getDb>>): Promise<ClubSettingsDto> {
   const [row] = await db
     .select({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude })
     .from(clubSettings)
@@ -31,5 +36,6 @@ export async function updateClubSettings(actor: SessionUser, input: SettingsInpu
     .values({ id: 1, ...input, updatedAt: new Date() })
     .onConflictDoUpdate({ target: clubSettings.id, set: { ...input, updatedAt: new Date() } })
     .returning({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude });
+  invalidateReads('settings');
   return row;
 }

@@ -3,6 +3,7 @@ import { and, eq } from 'drizzle-orm';
 import { getDb, type Db } from '@/db/client';
 import { species, speciesRevisions } from '@/db/schema';
 import { AppError } from '@/lib/errors';
+import { invalidateReads } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
 import { hasRole } from '@/lib/auth/roles';
 import { parseSpeciesMarkdown, speciesColumns } from '@/lib/species/content';
@@ -41,6 +42,7 @@ async function writeRevision(
   actor: SessionUser,
 ): Promise<SavedRevision> {
   const status = input.publish ? 'published' : 'draft';
+  invalidateReads('species');
   await tx.insert(speciesRevisions).values({
     speciesId: row.id,
     revision,
@@ -58,6 +60,7 @@ async function writeRevision(
     .update(species)
     .set({ ...cols, publishedRevision, updatedAt: new Date() })
     .where(eq(species.id, row.id));
+  invalidateReads('species');
   return { slug: input.record.slug, revision, status, publishedRevision, latestRevision: revision };
 }
 

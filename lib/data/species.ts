@@ -3,6 +3,7 @@ import { and, asc, desc, eq, isNotNull } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { species, speciesRevisions, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
+import { cachedRead } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
 import { hasRole } from '@/lib/auth/roles';
 import { speciesRecordSchema, toWizardSpecies, type SpeciesRecord, type WizardSpecies } from '@/lib/validation/species';
@@ -42,8 +43,13 @@ export async function getPublishedRecord(slug: string): Promise<{ record: Specie
 
 /** What the wizard needs of a species, from its published revision only. */
 export async function getWizardSpecies(slug: string): Promise<WizardSpecies | null> {
-  const pub = await getPublishedRecord(slug);
-  return pub ? toWizardSpecies(pub.record, pub.revision) : null;
+  // Every evaluation reads its species: keep the parsed published record for a few seconds
+  // (species-editorial.ts invalidates on every write).
+  const db = await getDb();
+  return cachedRead(db, 'species', slug, async () => {
+    const pub = await getPublishedRecord(slug);
+    return pub ? toWizardSpecies(pub.record, pub.revision) : null;
+  });
 }
 
 /** Names of every published species, for fuzzy search in the wizard's species picker. */

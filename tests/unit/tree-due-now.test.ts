@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { invalidateReads } from '@/lib/data/read-cache';
 import { eq } from 'drizzle-orm';
 import { openDatabase, type DbHandle } from '@/db/open';
 import { setDbHandle } from '@/db/client';
@@ -39,6 +40,8 @@ const tree = (over: Partial<TreeDto> = {}): TreeDto => ({
 
 async function setHemisphere(h: 'north' | 'south') {
   await handle.db.update(clubSettings).set({ hemisphere: h }).where(eq(clubSettings.id, 1));
+  // This writes past the data layer, so it tells the read cache itself.
+  invalidateReads('settings');
 }
 
 describe('recent collection', () => {
