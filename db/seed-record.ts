@@ -6,6 +6,7 @@ import { evaluate } from '@/lib/wizard/engine';
 import type { WizardInput } from '@/lib/wizard/types';
 import { speciesRecordSchema, toWizardSpecies } from '@/lib/validation/species';
 import { rewriteNoteLinks } from '@/lib/data/notes';
+import { answerRowFromResult } from '@/lib/data/answer-row';
 
 // Demo content for the invented Riverside Pine Study Group: two trees kept by the demo member,
 // one answer about the first (shared with the club), and a published meeting note by the
@@ -87,15 +88,7 @@ export async function seedRecord(db: Db) {
       id: demoAnswerId,
       userId: member,
       treeId: demoTreeIds.scots,
-      speciesSlug: result.speciesSlug,
-      speciesRevision: result.speciesRevision,
-      engineVersion: result.engineVersion,
-      action: result.action,
-      stage: result.stage,
-      season: result.season,
-      observedOn: result.date,
-      input: input as unknown as Record<string, unknown>,
-      result: result as unknown as Record<string, unknown>,
+      ...answerRowFromResult(input, result),
       note: 'Top pad candles past the silhouette.',
       followUp: 'Pinched on 12 April; the buds behind extended by early May and were pinched again.',
       visibility: 'club',

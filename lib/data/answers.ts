@@ -10,6 +10,7 @@ import type { SaveAnswerBody } from '@/lib/validation/wizard';
 import type { Action, WizardInput, WizardResult } from '@/lib/wizard/types';
 import { compareResults, type ResultComparison } from '@/lib/wizard/compare';
 import { runWizard } from './wizard';
+import { answerRowFromResult } from './answer-row';
 
 // The answer log. Every read is scoped in the query itself: the owner sees their answers, any
 // signed-in member sees answers shared with the club, and nobody else learns that an id exists.
@@ -84,15 +85,7 @@ export async function saveAnswer(user: SessionUser, body: SaveAnswerBody): Promi
     id,
     userId: user.id,
     treeId: treeId ?? null,
-    speciesSlug: result.speciesSlug,
-    speciesRevision: result.speciesRevision,
-    engineVersion: result.engineVersion,
-    action: result.action,
-    stage: result.stage,
-    season: result.season,
-    observedOn: result.date,
-    input: input as unknown as Record<string, unknown>,
-    result: result as unknown as Record<string, unknown>,
+    ...answerRowFromResult(input, result),
     note: note ?? '',
     visibility: visibility ?? 'private',
     createdAt: new Date(),

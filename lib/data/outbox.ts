@@ -1,5 +1,5 @@
 import 'server-only';
-import { desc, eq } from 'drizzle-orm';
+import { desc } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { outboxMessages } from '@/db/schema';
 import { AppError } from '@/lib/errors';
@@ -15,6 +15,16 @@ export interface OutboxMessageDto {
   receivedAt: string;
 }
 
+const dtoColumns = {
+  id: outboxMessages.id,
+  to: outboxMessages.envelopeTo,
+  from: outboxMessages.envelopeFrom,
+  subject: outboxMessages.subject,
+  text: outboxMessages.text,
+  html: outboxMessages.html,
+  receivedAt: outboxMessages.receivedAt,
+};
+
 function requireAdmin(actor: SessionUser) {
   if (actor.role !== 'admin') throw new AppError('forbidden:outbox', 'Only administrators read the outbox.');
 }
@@ -23,21 +33,9 @@ export async function listOutbox(actor: SessionUser, limit = 50): Promise<Outbox
   requireAdmin(actor);
   const db = await getDb();
   const rows = await db
-    .select({ id: outboxMessages.id, to: outboxMessages.envelopeTo, from: outboxMessages.envelopeFrom, subject: outboxMessages.subject, text: outboxMessages.text, html: outboxMessages.html, receivedAt: outboxMessages.receivedAt })
+    .select(dtoColumns)
     .from(outboxMessages)
     .orderBy(desc(outboxMessages.id))
     .limit(Math.min(Math.max(limit, 1), 200));
   return rows.map((r) => ({ ...r, receivedAt: r.receivedAt.toISOString() }));
-}
-
-export async function getOutboxMessage(actor: SessionUser, id: number): Promise<OutboxMessageDto> {
-  requireAdmin(actor);
-  const db = await getDb();
-  const [r] = await db
-    .select({ id: outboxMessages.id, to: outboxMessages.envelopeTo, from: outboxMessages.envelopeFrom, subject: outboxMessages.subject, text: outboxMessages.text, html: outboxMessages.html, receivedAt: outboxMessages.receivedAt })
-    .from(outboxMessages)
-    .where(eq(outboxMessages.id, id))
-    .limit(1);
-  if (!r) throw new AppError('not_found:message');
-  return { ...r, receivedAt: r.receivedAt.toISOString() };
 }

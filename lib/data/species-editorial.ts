@@ -42,7 +42,6 @@ async function writeRevision(
   actor: SessionUser,
 ): Promise<SavedRevision> {
   const status = input.publish ? 'published' : 'draft';
-  invalidateReads('species');
   await tx.insert(speciesRevisions).values({
     speciesId: row.id,
     revision,
@@ -60,6 +59,8 @@ async function writeRevision(
     .update(species)
     .set({ ...cols, publishedRevision, updatedAt: new Date() })
     .where(eq(species.id, row.id));
+  // Cached wizard reads of species are stale from here on (PGlite queues other reads behind this
+  // transaction, so none can re-cache the old revision before it commits).
   invalidateReads('species');
   return { slug: input.record.slug, revision, status, publishedRevision, latestRevision: revision };
 }
