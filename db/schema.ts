@@ -77,7 +77,7 @@ export const species = pgTable('species', {
   synonyms: jsonb('synonyms').$type<string[]>().notNull().default([]),
   genus: text('genus').notNull(),
   group: text('group').notNull(),
-  flushHabit: text('flush_habit').$type<'single' | 'double'>(),
+  flushHabit: text('flush_habit').$type<'single' | 'double' | 'polycyclic'>(),
   vigour: text('vigour').$type<'low' | 'moderate' | 'high'>(),
   needleMinMm: real('needle_min_mm'),
   needleMaxMm: real('needle_max_mm'),

@@ -21,8 +21,9 @@ export function answerCardMeta(p: AnswerPreview): string {
   return `${actionWords[p.action] ?? p.action} · ${p.speciesName} · ${formatMeetingDate(p.observedOn)} · asked by ${p.askerName}`;
 }
 
-export function speciesCardMeta(s: { commonName: string; botanicalName: string; flushHabit: 'single' | 'double' }): string {
-  return `${s.commonName} (${s.botanicalName}) · ${s.flushHabit === 'double' ? 'double flush' : 'single flush'}`;
+export function speciesCardMeta(s: { commonName: string; botanicalName: string; flushHabit: 'single' | 'double' | 'polycyclic' }): string {
+  const flush = { single: 'single flush', double: 'double flush', polycyclic: 'several flushes a season' }[s.flushHabit];
+  return `${s.commonName} (${s.botanicalName}) · ${flush}`;
 }
 
 const keyOf = (l: InternalLink) => (l.type === 'answer' ? `a:${l.id}` : `s:${l.slug}`);

@@ -1,4 +1,5 @@
 import 'server-only';
+import type { FlushHabit } from '@/lib/validation/species';
 import { and, asc, eq, gt, gte, isNotNull, lte, or, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { species } from '@/db/schema';
@@ -15,7 +16,7 @@ export interface SpeciesListItem {
   synonyms: string[];
   genus: string;
   group: string;
-  flushHabit: 'single' | 'double' | null;
+  flushHabit: FlushHabit | null;
   needleLengthMm: { min: number | null; max: number | null };
   vigour: 'low' | 'moderate' | 'high' | null;
   publishedRevision: number | null;
@@ -70,7 +71,7 @@ interface Row {
   synonyms: string[];
   genus: string;
   group: string;
-  flushHabit: 'single' | 'double' | null;
+  flushHabit: FlushHabit | null;
   vigour: 'low' | 'moderate' | 'high' | null;
   needleMinMm: number | null;
   needleMaxMm: number | null;

@@ -17,12 +17,14 @@ export const traitLabels: Record<keyof SpeciesTraits, string> = {
 export const traitOrder = Object.keys(traitLabels) as (keyof SpeciesTraits)[];
 
 export const groupLabels: Record<string, string> = {
-  pine: 'Pine', larch: 'Larch', spruce: 'Spruce', fir: 'Fir', cedar: 'Cedar', juniper: 'Juniper', cypress: 'Cypress', yew: 'Yew', other: 'Other',
+  pine: 'Pine', larch: 'Larch', spruce: 'Spruce', fir: 'Fir', 'douglas-fir': 'Douglas fir', hemlock: 'Hemlock', cedar: 'Cedar',
+  juniper: 'Juniper', cypress: 'Cypress', redwood: 'Cryptomeria and swamp cypress', yew: 'Yew', podocarp: 'Podocarp', other: 'Other',
 };
 
 export const valueLabels: Record<string, string> = {
   single: 'Single flush',
   double: 'Double flush',
+  polycyclic: 'Several flushes a season (polycyclic)',
   uninodal: 'Uninodal',
   multinodal: 'Multinodal',
   'not-applicable': 'Not applicable',

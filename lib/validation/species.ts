@@ -6,8 +6,16 @@ import { z } from 'zod';
 export const provenanceKinds = ['published', 'common-practice', 'from-memory'] as const;
 export type ProvenanceKind = (typeof provenanceKinds)[number];
 
-export const speciesGroups = ['pine', 'larch', 'spruce', 'fir', 'cedar', 'juniper', 'cypress', 'yew', 'other'] as const;
-export const flushHabits = ['single', 'double'] as const;
+// The groups the wizard models techniques for. `redwood` holds Cryptomeria and Taxodium (awl or
+// linear foliage on green shoots), `podocarp` the southern yews.
+export const speciesGroups = [
+  'pine', 'larch', 'spruce', 'fir', 'douglas-fir', 'hemlock', 'cedar', 'juniper', 'cypress', 'redwood', 'yew', 'podocarp', 'other',
+] as const;
+// The trade trait: one flush a season, a second flush after the spring candles are cut, or several
+// growth units in one season on their own (polycyclic). The botanical shoot habit sits beside it.
+export const flushHabits = ['single', 'double', 'polycyclic'] as const;
+export type FlushHabit = (typeof flushHabits)[number];
+export type SpeciesGroup = (typeof speciesGroups)[number];
 export const shootHabits = ['uninodal', 'multinodal', 'not-applicable'] as const;
 export const levels = ['low', 'moderate', 'high'] as const;
 export const needleResponses = ['slight', 'moderate', 'strong'] as const;
@@ -84,6 +92,8 @@ export interface WizardSpecies {
   revision: number;
   flushHabit: (typeof flushHabits)[number];
   shootHabit: (typeof shootHabits)[number];
+  /** Needles per bundle (fascicle) for pines; null where needles are not in bundles. */
+  needlesPerFascicle: number | null;
   needleLengthMm: { min: number; max: number };
   vigour: (typeof levels)[number];
   backBudding: (typeof levels)[number];
@@ -106,6 +116,7 @@ export function toWizardSpecies(rec: SpeciesRecord, revision: number): WizardSpe
     revision,
     flushHabit: t.flushHabit.value,
     shootHabit: t.shootHabit.value,
+    needlesPerFascicle: t.needlesPerFascicle.value,
     needleLengthMm: t.needleLengthMm.value,
     vigour: t.vigour.value,
     backBudding: t.backBudding.value,

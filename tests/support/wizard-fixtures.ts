@@ -4,7 +4,7 @@ import type { WizardContext, WizardInput } from '@/lib/wizard/types';
 // Fixture species for the engine tests: the traits the rules read, nothing else.
 export const scots: WizardSpecies = {
   slug: 'pinus-sylvestris', botanicalName: 'Pinus sylvestris', commonName: 'Scots pine', group: 'pine', revision: 3,
-  flushHabit: 'single', shootHabit: 'uninodal', needleLengthMm: { min: 30, max: 70 }, vigour: 'moderate',
+  flushHabit: 'single', shootHabit: 'uninodal', needlesPerFascicle: 2, needleLengthMm: { min: 30, max: 70 }, vigour: 'moderate',
   backBudding: 'moderate', feedingNeedleResponse: 'moderate', cautions: [],
 };
 export const mugo: WizardSpecies = {

@@ -5,7 +5,7 @@ import { fetcher } from '@/components/fetcher';
 import type { LinkableAnswerDto } from '@/lib/data/linkable-answers';
 import { formatMeetingDate } from '@/lib/validation/notes';
 
-type SpeciesItem = { slug: string; botanicalName: string; commonNames: string[]; flushHabit: 'single' | 'double' | null };
+type SpeciesItem = { slug: string; botanicalName: string; commonNames: string[]; flushHabit: 'single' | 'double' | 'polycyclic' | null };
 
 const actionOptions = [
   { value: '', label: 'Any action' },
