@@ -5,7 +5,7 @@ import type { WizardResult } from '@/lib/wizard/types';
 const stageLabel = { development: 'Development', refinement: 'Refinement', recovery: 'Recovery' } as const;
 const seasonLabel = { winter: 'Winter', spring: 'Spring', summer: 'Summer', autumn: 'Autumn' } as const;
 const actionTone: Record<WizardResult['action'], string> = {
-  pinch: 'bg-moss-700', prune: 'bg-bark-700', decandle: 'bg-bark-800', 'let-grow': 'bg-moss-600', wait: 'bg-stone-700',
+  pinch: 'bg-moss-700', prune: 'bg-bark-700', decandle: 'bg-bark-800', 'let-grow': 'bg-moss-600', thin: 'bg-moss-800', wait: 'bg-stone-700',
 };
 
 export function AnswerResult({ result }: { result: WizardResult }) {

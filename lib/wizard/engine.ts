@@ -16,6 +16,7 @@ export const headlines: Record<Action, string> = {
   prune: 'Prune the tip',
   'let-grow': 'Let it grow',
   decandle: 'Decandle',
+  thin: 'Thin buds and old needles',
   wait: 'Wait: nothing to do now',
 };
 
@@ -203,6 +204,10 @@ export function evaluate(input: WizardInput, species: WizardSpecies, context: Wi
     stage,
     season: s.season,
     keepNeedlePairs: d.keep,
+    candleKeep: null,
+    keepNeedleBundles: d.keep,
+    howTo: [],
+    terms: [],
     reasons,
     cautions,
     fertilizer,

@@ -7,7 +7,8 @@ export const positions = ['beyond-silhouette', 'at-silhouette', 'interior'] as c
 export const healthLevels = ['strong', 'average', 'weak'] as const;
 export const hemispheres = ['north', 'south'] as const;
 export const containerShapes = ['round', 'rectangle', 'oval'] as const;
-export const actions = ['pinch', 'prune', 'let-grow', 'decandle', 'wait'] as const;
+export const actions = ['pinch', 'prune', 'let-grow', 'decandle', 'thin', 'wait'] as const;
+export const candleStrengths = ['strong', 'average', 'weak'] as const;
 export const stages = ['development', 'refinement', 'recovery'] as const;
 export const seasons = ['winter', 'spring', 'summer', 'autumn'] as const;
 
@@ -20,6 +21,7 @@ export type ContainerShape = (typeof containerShapes)[number];
 export type Action = (typeof actions)[number];
 export type Stage = (typeof stages)[number];
 export type Season = (typeof seasons)[number];
+export type CandleStrength = (typeof candleStrengths)[number];
 
 export interface ContainerInput {
   shape: ContainerShape;
@@ -42,6 +44,12 @@ export interface WizardInput {
   recentlyCollected?: boolean;
   backBuds?: boolean;
   container?: ContainerInput;
+  /** This candle against the others on the tree. */
+  candleStrength?: CandleStrength;
+  /** A tree repotted this year is not decandled. */
+  repottedThisYear?: boolean;
+  /** Heat sum (°C days above +5 °C) since the start of this year's season, where a record supplies it. */
+  degreeDays?: number;
 }
 
 export interface WizardContext {
@@ -56,6 +64,11 @@ export interface Reason {
   rule: string;
   text: string;
   source: string;
+}
+
+export interface Term {
+  term: string;
+  definition: string;
 }
 
 export interface Caution {
@@ -88,6 +101,14 @@ export interface WizardResult {
   stage: Stage;
   season: Season;
   keepNeedlePairs: number | null;
+  /** The fraction (0–1) of this candle's length to leave when pinching or shortening. */
+  candleKeep: { min: number; max: number } | null;
+  /** Needle bundles to leave below a cut on a hardened shoot. */
+  keepNeedleBundles: number | null;
+  /** The steps of doing the action. */
+  howTo: string[];
+  /** Every trade term the answer uses, explained. */
+  terms: Term[];
   reasons: Reason[];
   cautions: Caution[];
   fertilizer: FertilizerPlan;
