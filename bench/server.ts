@@ -1,5 +1,6 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
+import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import { freePort } from '../tests/support/app-server';
 
@@ -24,7 +25,7 @@ export function benchEnv(dataDir: string, port: number): NodeJS.ProcessEnv {
     DATABASE_URL: '',
     PORT: String(port),
     NEXTAUTH_URL: `http://127.0.0.1:${port}`,
-    NEXTAUTH_SECRET: 'benchmark-secret-0123456789abcdef',
+    NEXTAUTH_SECRET: randomBytes(32).toString('base64url'),
     MAIL_FAKE: '0',
     SMTP_URL: 'smtp://127.0.0.1:9',
   };

@@ -9,6 +9,8 @@ const schema = z.object({
   DATABASE_URL: z.string().url().optional(),
   NEXTAUTH_URL: z.string().url().default('http://127.0.0.1:3000'),
   NEXTAUTH_SECRET: z.string().min(16).optional(),
+  /** Where a generated secret is kept when NEXTAUTH_SECRET is unset (default: beside the PGlite directory). */
+  SECRET_FILE: z.string().min(1).optional(),
   SMTP_URL: z.string().optional(),
   SMTP_FAKE_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FAKE: z.enum(['0', '1']).default('0'),
@@ -25,23 +27,14 @@ if (!parsed.success) {
 
 const raw = parsed.data;
 
-function secret(): string {
-  if (raw.NEXTAUTH_SECRET) return raw.NEXTAUTH_SECRET;
-  const building = process.env.NEXT_PHASE === 'phase-production-build';
-  if (raw.NODE_ENV === 'production' && !building && process.env.CANDLEWISE_ALLOW_DEV_SECRET !== '1') {
-    // Demo and test scripts set CANDLEWISE_ALLOW_DEV_SECRET; a real deployment must set a secret.
-    throw new Error('NEXTAUTH_SECRET must be set in production (at least 16 characters).');
-  }
-  return 'candlewise-development-secret-not-for-production';
-}
-
 export const env = {
   ...raw,
   PGLITE_DIR: path.resolve(raw.PGLITE_DIR),
   UPLOADS_DIR: path.resolve(raw.UPLOADS_DIR),
-  get NEXTAUTH_SECRET_VALUE() {
-    return secret();
-  },
+  /** The generated secret's file (lib/auth/secret.ts): kept with the data, owner-readable only. */
+  secretFile: path.resolve(raw.SECRET_FILE ?? path.join(path.dirname(path.resolve(raw.PGLITE_DIR)), 'candlewise-secret')),
+  /** True while `next build` runs: nothing may be written or opened then. */
+  building: process.env.NEXT_PHASE === 'phase-production-build',
   /** Mail goes to the local fake unless a real SMTP server is configured. */
   get smtpUrl() {
     return raw.SMTP_URL ?? `smtp://127.0.0.1:${raw.SMTP_FAKE_PORT}`;

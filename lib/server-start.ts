@@ -2,7 +2,10 @@
 // them) and, in development, demo and tests, start the local SMTP fake.
 export async function startServer() {
   const { getDb } = await import('@/db/client');
+  const { masterSecret } = await import('@/lib/auth/secret');
   try {
+    // Refuse to start without a usable secret, rather than on the first sign-in.
+    masterSecret();
     await getDb();
   } catch (e) {
     console.error(`[candlewise] ${(e as Error).message}`);

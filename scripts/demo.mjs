@@ -2,7 +2,7 @@
 // with the local mail fake. Each step runs to completion before the server takes the data directory.
 import { spawnSync, spawn } from 'node:child_process';
 
-const env = { ...process.env, NEXT_TELEMETRY_DISABLED: '1', CANDLEWISE_ALLOW_DEV_SECRET: process.env.NEXTAUTH_SECRET ? '0' : '1' };
+const env = { ...process.env, NEXT_TELEMETRY_DISABLED: '1' };
 const tsx = ['node_modules/.bin/tsx', ['--conditions=react-server']];
 
 function step(label, cmd, args) {

@@ -11,7 +11,6 @@ const env = {
   PORT: port,
   NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? `http://${host}:${port}`,
   MAIL_FAKE: process.env.SMTP_URL ? '0' : (process.env.MAIL_FAKE ?? '1'),
-  CANDLEWISE_ALLOW_DEV_SECRET: process.env.NEXTAUTH_SECRET ? '0' : '1',
 };
 // Start next directly (not through npx) so signals reach the server and it can close the database.
 const child = spawn('node_modules/.bin/next', [mode, '--hostname', host, '--port', port, ...rest], { stdio: 'inherit', env });

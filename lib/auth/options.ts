@@ -7,6 +7,7 @@ import { DrizzleAdapter } from '@auth/drizzle-adapter';
 import { getDb } from '@/db/client';
 import { accounts, sessions, users, verificationTokens } from '@/db/schema';
 import { env } from '@/lib/env';
+import { sessionKey } from '@/lib/auth/secret';
 import { signInSchema } from '@/lib/validation/auth';
 import { bumpTokenVersion, findAuthUserById, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
 import { clientIp, recordSignInFailure } from './rate-limit';
@@ -35,7 +36,10 @@ export const EMAIL_LINK_MAX_AGE = 15 * 60;
 
 export const authOptions: AuthOptions = {
   adapter: lazyAdapter(),
-  secret: env.NEXTAUTH_SECRET_VALUE,
+  // Read at request time, not at import (the build imports this module and must not create a secret).
+  get secret() {
+    return sessionKey();
+  },
   session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE },
   useSecureCookies: env.secureCookies,
   pages: { signIn: '/sign-in', verifyRequest: '/verify', error: '/sign-in' },

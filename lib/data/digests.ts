@@ -4,6 +4,7 @@ import { getDb } from '@/db/client';
 import { digestSends, notes, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { env } from '@/lib/env';
+import { unsubscribeKey } from '@/lib/auth/secret';
 import { sendMail } from '@/lib/mail/transport';
 import { renderDigest } from '@/lib/mail/digest';
 import { createUnsubscribeToken, verifyUnsubscribeToken } from '@/lib/mail/unsubscribe';
@@ -37,7 +38,7 @@ function requireWriter(actor: SessionUser) {
 }
 
 export function unsubscribeUrlFor(userId: string, now = Date.now()): string {
-  const token = createUnsubscribeToken(userId, env.NEXTAUTH_SECRET_VALUE, now);
+  const token = createUnsubscribeToken(userId, unsubscribeKey(), now);
   return `${new URL(env.NEXTAUTH_URL).origin}/unsubscribe?token=${encodeURIComponent(token)}`;
 }
 
@@ -122,7 +123,7 @@ export async function sendNoteDigest(
 
 /** Turn the digest off for the member a valid token names; no sign-in needed. */
 export async function unsubscribeWithToken(token: string): Promise<{ email: string }> {
-  const check = verifyUnsubscribeToken(token, env.NEXTAUTH_SECRET_VALUE);
+  const check = verifyUnsubscribeToken(token, unsubscribeKey());
   if (!check.ok) {
     throw check.reason === 'expired'
       ? new AppError('bad_request:token_expired', 'This link has expired. Sign in and turn the e-mails off on your profile page.', { token: ['Expired'] })

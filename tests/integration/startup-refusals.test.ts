@@ -1,6 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
+import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
 import { freePort } from '../support/app-server';
@@ -28,7 +29,7 @@ async function startApp(pgliteDir: string) {
       PGLITE_DIR: pgliteDir,
       DATABASE_URL: '',
       NEXTAUTH_URL: `http://127.0.0.1:${port}`,
-      NEXTAUTH_SECRET: 'integration-test-secret-0123456789',
+      NEXTAUTH_SECRET: randomBytes(32).toString('base64url'),
       MAIL_FAKE: '0',
     },
     stdio: ['ignore', 'pipe', 'pipe'],

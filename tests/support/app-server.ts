@@ -1,6 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
+import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
 
@@ -45,7 +46,8 @@ export async function startApp(opts: { databaseUrl?: string; env?: Record<string
     DATABASE_URL: opts.databaseUrl ?? '',
     PORT: String(port),
     NEXTAUTH_URL: `http://127.0.0.1:${port}`,
-    NEXTAUTH_SECRET: 'integration-test-secret-0123456789',
+    // A fresh random secret per server: no value in the repository signs anything.
+    NEXTAUTH_SECRET: randomBytes(32).toString('base64url'),
     SMTP_FAKE_PORT: String(smtpPort),
     MAIL_FAKE: '1',
     SMTP_URL: '',

@@ -1,5 +1,6 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import type { AuthOptions } from 'next-auth';
+import { randomBytes } from 'node:crypto';
 // next-auth does not export its core; it is the very code the route handler runs.
 import { AuthHandler } from '../../../node_modules/next-auth/core/index.js';
 import { openDatabase, type DbHandle } from '@/db/open';
@@ -25,7 +26,7 @@ afterEach(() => vi.useRealTimers());
 async function optionsFor(url: string): Promise<AuthOptions> {
   vi.resetModules();
   vi.stubEnv('NEXTAUTH_URL', url);
-  vi.stubEnv('NEXTAUTH_SECRET', 'unit-test-secret-0123456789abcdef');
+  vi.stubEnv('NEXTAUTH_SECRET', randomBytes(32).toString('base64url'));
   const { authOptions } = await import('@/lib/auth/options');
   vi.unstubAllEnvs();
   return authOptions;
