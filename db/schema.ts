@@ -53,6 +53,8 @@ export const clubSettings = pgTable('club_settings', {
   clubName: text('club_name').notNull().default('Our bonsai club'),
   hemisphere: text('hemisphere').$type<'north' | 'south'>().notNull().default('north'),
   defaultLatitude: real('default_latitude').notNull().default(45),
+  /** Shift of the wizard's decandle window for the club's local season, in days (−30 to +30). */
+  decandleOffsetDays: integer('decandle_offset_days').notNull().default(0),
   updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -8,6 +8,12 @@ const actionTone: Record<WizardResult['action'], string> = {
   pinch: 'bg-moss-700', prune: 'bg-bark-700', decandle: 'bg-bark-800', 'let-grow': 'bg-moss-600', thin: 'bg-moss-800', wait: 'bg-stone-700',
 };
 
+/** "Keep about a third to a half of this candle", from the fraction to leave. */
+export function candleKeepSentence(k: { min: number; max: number }): string {
+  const word = (x: number) => (x <= 0.34 ? 'a third' : x <= 0.5 ? 'a half' : x <= 0.67 ? 'two-thirds' : 'three-quarters');
+  return `Keep about ${word(k.min)} to ${word(k.max)} of this candle`;
+}
+
 export function AnswerResult({ result }: { result: WizardResult }) {
   const f = result.fertilizer;
   return (
@@ -15,13 +21,44 @@ export function AnswerResult({ result }: { result: WizardResult }) {
       <section className={`rounded-card p-5 text-white ${actionTone[result.action]}`} data-testid="answer-action" aria-labelledby="answer-headline">
         <p className="text-sm uppercase tracking-wide text-white/85">{result.speciesName} · {stageLabel[result.stage]} · {seasonLabel[result.season]}</p>
         <h2 id="answer-headline" className="mt-1 font-display text-3xl font-semibold text-white sm:text-4xl">{result.action === 'pinch' || result.action === 'prune' ? result.headline.split(':')[0] : result.headline}</h2>
-        {result.keepNeedlePairs !== null && (
+        {result.candleKeep ? (
+          <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-candle">
+            {candleKeepSentence(result.candleKeep)}
+          </p>
+        ) : null}
+        {result.keepNeedleBundles != null ? (
+          <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-needles">
+            Leave at least {result.keepNeedleBundles} {result.keepNeedlePairs != null ? 'needle pairs' : 'needle bundles'} below the cut
+          </p>
+        ) : result.keepNeedlePairs != null && result.candleKeep === undefined ? (
+          // Answers saved by engine 1.0.0 carry only the pair count.
           <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-needles">
             Leave at least {result.keepNeedlePairs} pairs of needles
           </p>
-        )}
+        ) : null}
         <p className="mt-3 text-white/90" data-testid="day-length">{result.date} · {result.dayLength.text}</p>
       </section>
+
+      {result.howTo?.length ? (
+        <section className="card" aria-labelledby="howto-h" data-testid="how-to">
+          <h3 id="howto-h" className="text-lg">How to do it</h3>
+          <ol className="mt-2 list-decimal space-y-1 pl-5">{result.howTo.map((s) => <li key={s}>{s}</li>)}</ol>
+        </section>
+      ) : null}
+
+      {result.terms?.length ? (
+        <section className="card" aria-labelledby="terms-h" data-testid="terms">
+          <h3 id="terms-h" className="text-lg">Words used here</h3>
+          <div className="mt-2 space-y-1">
+            {result.terms.map((t) => (
+              <details key={t.term} className="rounded-lg border border-stone-200 px-3 py-2">
+                <summary className="min-h-11 cursor-pointer py-2 font-semibold">{t.term}</summary>
+                <p className="pb-2">{t.definition}</p>
+              </details>
+            ))}
+          </div>
+        </section>
+      ) : null}
 
       {result.watch.length > 0 && (
         <section className="card" aria-labelledby="watch-h">
@@ -59,6 +96,9 @@ export function AnswerResult({ result }: { result: WizardResult }) {
           <dt className="font-medium text-stone-700">When</dt><dd>{f.window}</dd>
           <dt className="font-medium text-stone-700">Organic pellets</dt><dd data-testid="feed-placement">{f.placement}</dd>
           {f.surfaceCm2 !== null && (<><dt className="font-medium text-stone-700">Soil surface</dt><dd>about {f.surfaceCm2} cm²</dd></>)}
+          {f.pelletSize ? (<><dt className="font-medium text-stone-700">Pellet size</dt><dd>{f.pelletSize}</dd></>) : null}
+          {f.renewWeeks ? (<><dt className="font-medium text-stone-700">Renew piles</dt><dd>every {f.renewWeeks.min}–{f.renewWeeks.max} weeks, as they crumble away</dd></>) : null}
+          {!f.feedNow && f.resumeWhen ? (<><dt className="font-medium text-stone-700">Start again</dt><dd>{f.resumeWhen}</dd></>) : null}
           <dt className="font-medium text-stone-700">Foliar feed</dt><dd>{f.foliar ? 'Yes: fish emulsion or kelp, as the label directs' : 'No'}</dd>
         </dl>
         <details className="mt-3">

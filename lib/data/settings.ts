@@ -10,9 +10,10 @@ export interface ClubSettingsDto {
   clubName: string;
   hemisphere: 'north' | 'south';
   defaultLatitude: number;
+  decandleOffsetDays: number;
 }
 
-const DEFAULTS: ClubSettingsDto = { clubName: 'Our bonsai club', hemisphere: 'north', defaultLatitude: 45 };
+const DEFAULTS: ClubSettingsDto = { clubName: 'Our bonsai club', hemisphere: 'north', defaultLatitude: 45, decandleOffsetDays: 0 };
 
 /** Club settings are readable by everyone (the wizard uses them, signed in or not). */
 export async function getClubSettings(): Promise<ClubSettingsDto> {
@@ -22,7 +23,7 @@ export async function getClubSettings(): Promise<ClubSettingsDto> {
 
 async function loadClubSettings(db: Awaited<ReturnType<typeof getDb>>): Promise<ClubSettingsDto> {
   const [row] = await db
-    .select({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude })
+    .select({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude, decandleOffsetDays: clubSettings.decandleOffsetDays })
     .from(clubSettings)
     .limit(1);
   return row ?? DEFAULTS;
@@ -35,7 +36,7 @@ export async function updateClubSettings(actor: SessionUser, input: SettingsInpu
     .insert(clubSettings)
     .values({ id: 1, ...input, updatedAt: new Date() })
     .onConflictDoUpdate({ target: clubSettings.id, set: { ...input, updatedAt: new Date() } })
-    .returning({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude });
+    .returning({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude, decandleOffsetDays: clubSettings.decandleOffsetDays });
   invalidateReads('settings');
   return row;
 }

@@ -15,7 +15,7 @@ export function todayIso(now = new Date()): string {
 
 export async function wizardContext(): Promise<WizardContext> {
   const s = await getClubSettings();
-  return { hemisphere: s.hemisphere, latitude: s.defaultLatitude, today: todayIso() };
+  return { hemisphere: s.hemisphere, latitude: s.defaultLatitude, today: todayIso(), decandleOffsetDays: s.decandleOffsetDays };
 }
 
 /** Run the engine on a validated body against the published species. Unknown species → 404. */
@@ -25,7 +25,7 @@ export async function runWizard(input: WizardInput): Promise<{ result: WizardRes
   try {
     return { result: evaluate(input, species, await wizardContext()), species };
   } catch (e) {
-    if (e instanceof WizardInputError) throw new AppError('bad_request:fields', e.message, { [e.field]: [e.message] });
+    if (e instanceof WizardInputError) throw new AppError('bad_request:fields', e.message, e.fields);
     throw e;
   }
 }

@@ -46,5 +46,12 @@ export const settingsSchema = z.object({
     // Stored as a PostgreSQL real, which refuses magnitudes below ~1e-38 (1e-320 was a 500 on
     // PostgreSQL): a millionth of a degree (about 0.1 m) is all a latitude needs.
     .transform((v) => Math.round(v * 1e6) / 1e6 + 0),
+  // Moves the wizard's decandle window earlier (negative) or later (positive) for the local season.
+  decandleOffsetDays: z.coerce
+    .number({ error: 'Give a whole number of days.' })
+    .int({ error: 'Give a whole number of days.' })
+    .min(-30, { error: 'Move the window by at most 30 days.' })
+    .max(30, { error: 'Move the window by at most 30 days.' })
+    .default(0),
 });
 export type SettingsInput = z.infer<typeof settingsSchema>;

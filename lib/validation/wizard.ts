@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import {
-  branchingLevels, containerShapes, hemispheres, healthLevels, positions, shootStates, actions,
+  branchingLevels, candleStrengths, containerShapes, hemispheres, healthLevels, positions, shootStates, actions,
 } from '@/lib/wizard/types';
 import { parseIsoDate } from '@/lib/wizard/season';
 import { slugSchema } from './species';
@@ -33,11 +33,23 @@ export const evaluateBodySchema = z
     recentlyCollected: z.boolean().optional(),
     backBuds: z.boolean().optional(),
     container: containerSchema.optional(),
+    candleStrength: z.enum(candleStrengths).optional(),
+    repottedThisYear: z.boolean().optional(),
+    // °C days above +5 °C since the season began; a year rarely passes 6 000 even in the tropics.
+    degreeDays: z.number().min(0).max(10_000).optional(),
   })
   // Position against the silhouette decides refinement; development does not ask it.
   .refine((b) => b.branching !== 'tertiary' || b.position !== undefined, {
     error: 'Say where the shoot is against the silhouette.',
     path: ['position'],
+  })
+  // A hemisphere and a latitude that disagree are refused, never silently flipped.
+  .superRefine((b, ctx) => {
+    if (!b.hemisphere || b.latitude === undefined || b.latitude === 0) return;
+    if ((b.latitude < 0) === (b.hemisphere === 'south')) return;
+    const message = `The ${b.hemisphere}ern hemisphere and latitude ${b.latitude}° disagree: southern latitudes are negative.`;
+    ctx.addIssue({ code: 'custom', path: ['hemisphere'], message });
+    ctx.addIssue({ code: 'custom', path: ['latitude'], message });
   });
 
 export type EvaluateBody = z.infer<typeof evaluateBodySchema>;

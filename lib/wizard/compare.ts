@@ -22,13 +22,19 @@ export interface ResultComparison {
   why: string[];
 }
 
-type Stored = Pick<WizardResult, 'action' | 'stage' | 'season' | 'keepNeedlePairs' | 'reasons' | 'fertilizer' | 'engineVersion' | 'speciesRevision'>;
+// Stored answers from engine 1.0.0 lack the v2 fields (candleKeep, keepNeedleBundles, howTo): they
+// read as null, so a re-run shows them as added.
+type Stored = Pick<WizardResult, 'action' | 'stage' | 'season' | 'keepNeedlePairs' | 'reasons' | 'fertilizer' | 'engineVersion' | 'speciesRevision'> &
+  Partial<Pick<WizardResult, 'candleKeep' | 'keepNeedleBundles' | 'howTo'>>;
 
 const fields: { field: string; label: string; get: (r: Stored) => unknown }[] = [
   { field: 'action', label: 'Action', get: (r) => r.action },
   { field: 'stage', label: 'Stage', get: (r) => r.stage },
   { field: 'season', label: 'Season', get: (r) => r.season },
   { field: 'keepNeedlePairs', label: 'Needle pairs to keep', get: (r) => r.keepNeedlePairs },
+  { field: 'candleKeep', label: 'Share of the candle to keep', get: (r) => r.candleKeep ?? null },
+  { field: 'keepNeedleBundles', label: 'Needle bundles to keep', get: (r) => r.keepNeedleBundles ?? null },
+  { field: 'howTo', label: 'How to do it', get: (r) => r.howTo ?? null },
   { field: 'fertilizer.feedNow', label: 'Feed now', get: (r) => r.fertilizer?.feedNow },
   { field: 'fertilizer.piles', label: 'Piles of pellets', get: (r) => r.fertilizer?.piles },
   { field: 'fertilizer.pelletsPerPile', label: 'Pellets per pile', get: (r) => r.fertilizer?.pelletsPerPile },

@@ -1,13 +1,21 @@
 import type { WizardSpecies } from '@/lib/validation/species';
-import { evaluate } from './engine';
+import { evaluate, shootLabels } from './engine';
 import { parseIsoDate, seasonOf, type SeasonInfo } from './season';
-import type { Action, Hemisphere, Season, ShootState, Stage } from './types';
+import type { Hemisphere, Season, ShootState, Stage } from './types';
 
-/** The shoot state a healthy pine usually shows at a point of the season. */
-export function typicalShootState(s: SeasonInfo): ShootState {
-  if (s.season === 'winter') return 'dormant-bud';
-  if (s.season === 'spring') return s.monthOfSeason === 1 ? 'dormant-bud' : s.monthOfSeason === 2 ? 'candle-extending' : 'needles-opening';
-  return 'needles-hardened';
+/**
+ * The shoot states a pine may show at this point of the season, earliest first. Nothing here is
+ * an observation: the tree page uses it to say what to look for, never what to do.
+ */
+export function likelyShootStates(s: SeasonInfo): ShootState[] {
+  if (s.season === 'winter') return ['dormant-bud'];
+  if (s.season === 'spring') {
+    if (s.monthOfSeason === 1) return ['dormant-bud', 'candle-extending'];
+    if (s.monthOfSeason === 2) return ['candle-extending', 'needles-opening'];
+    return ['candle-extending', 'needles-opening', 'needles-hardened'];
+  }
+  if (s.season === 'summer' && s.monthOfSeason === 1) return ['needles-opening', 'needles-hardened'];
+  return ['needles-hardened'];
 }
 
 export interface DueNowInput {
@@ -18,53 +26,58 @@ export interface DueNowInput {
   stage?: Stage;
   date: string;
   hemisphere: Hemisphere;
+  latitude?: number;
+}
+
+export interface LookFor {
+  shoot: ShootState;
+  /** The shoot state in words. */
+  label: string;
+  /** What the wizard would answer for an outer shoot in that state: conditional on seeing it. */
+  ifSeen: string;
 }
 
 export interface DueNow {
   season: Season;
   stage: Stage;
-  assumedShoot: ShootState;
-  action: Action;
+  /** "Look for: …" — what to check on the tree this month. Never an action. */
   headline: string;
-  feedNow: boolean;
+  lookFor: LookFor[];
   feedingWindow: string;
-  watch: string[];
-  rules: string[];
 }
 
 /**
- * What is due now on a tree, by running the engine itself on the shoot state typical of the
- * date (an outer shoot of a strong tree). The wizard, asked about a real shoot, is the authority.
+ * What to look for on a tree this month. The engine is asked about each shoot state the season
+ * makes likely, so the page can say "if you see candles extending, …", but nothing is presented
+ * as due until a member observes the shoot (in the wizard).
  */
 export function dueNow(input: DueNowInput): DueNow {
   const date = parseIsoDate(input.date);
   if (!date) throw new RangeError('date must be YYYY-MM-DD');
   const s = seasonOf(date, input.hemisphere);
   const stage = input.stageHint ?? input.stage ?? 'refinement';
-  const shoot = typicalShootState(s);
-  const result = evaluate(
-    {
-      species: input.species.slug,
-      branching: stage === 'refinement' ? 'tertiary' : 'secondary',
-      date: input.date,
-      hemisphere: input.hemisphere,
-      shoot,
-      position: 'beyond-silhouette',
-      health: stage === 'recovery' ? 'weak' : 'strong',
-      backBuds: stage === 'development' ? true : undefined,
-    },
-    input.species,
-    { hemisphere: input.hemisphere, latitude: input.hemisphere === 'south' ? -45 : 45, today: input.date },
-  );
+  const latitude = input.latitude ?? (input.hemisphere === 'south' ? -45 : 45);
+  const lookFor = likelyShootStates(s).map((shoot) => {
+    const r = evaluate(
+      {
+        species: input.species.slug,
+        branching: stage === 'refinement' ? 'tertiary' : 'secondary',
+        date: input.date,
+        hemisphere: input.hemisphere,
+        shoot,
+        position: 'beyond-silhouette',
+        health: stage === 'recovery' ? 'weak' : 'average',
+      },
+      input.species,
+      { hemisphere: input.hemisphere, latitude, today: input.date },
+    );
+    return { shoot, label: shootLabels[shoot], ifSeen: r.headline, feeding: r.fertilizer.window };
+  });
   return {
-    season: result.season,
-    stage: result.stage,
-    assumedShoot: shoot,
-    action: result.action,
-    headline: result.headline,
-    feedNow: result.fertilizer.feedNow,
-    feedingWindow: result.fertilizer.window,
-    watch: result.watch,
-    rules: result.reasons.map((r) => r.rule),
+    season: s.season,
+    stage,
+    headline: `Look for: ${lookFor.map((l) => l.label).join(' or ')}`,
+    lookFor: lookFor.map(({ shoot, label, ifSeen }) => ({ shoot, label, ifSeen })),
+    feedingWindow: lookFor[0].feeding,
   };
 }

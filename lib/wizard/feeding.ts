@@ -1,25 +1,41 @@
 import type { WizardSpecies } from '@/lib/validation/species';
 import { describeContainer, surfaceAreaCm2 } from './container';
+import type { Technique } from './groups';
 import { reason } from './rules';
 import type { ContainerInput, FertilizerPlan, Reason, Season, ShootState, Stage } from './types';
 
 /** The pot the pile counts are calibrated on: about 1 200 cm² of soil (40 × 30 cm). */
 export const REFERENCE_SURFACE_CM2 = 1200;
-export const REFERENCE_PILES = { refinement: 4, development: 8 } as const;
+export const REFERENCE_PILES = { light: 3, moderate: 4, heavy: 8 } as const;
 
 export const PELLETS = {
+  light: { min: 3, max: 4 },
   moderate: { min: 6, max: 8 },
   heavy: { min: 10, max: 12 },
 } as const;
+export type Regime = keyof typeof PELLETS;
+
+export const PELLET_SIZE = 'pellets about the size of a fingertip (1–2 cm across)';
+export const RENEW_WEEKS = { min: 4, max: 6 } as const;
+
+/** Pellets per cm² of soil at the reference pot: the density every pot size keeps. */
+export function referenceDensity(regime: Regime): number {
+  const p = PELLETS[regime];
+  return (REFERENCE_PILES[regime] * ((p.min + p.max) / 2)) / REFERENCE_SURFACE_CM2;
+}
 
 /**
- * Piles for a soil surface: linear in the area, calibrated on the reference pot, at least one
- * (two in heavy feeding, which always has about twice the moderate count). Our own rule.
+ * Piles and pellets for a soil surface, keeping the reference pot's density of pellets per cm².
+ * A pot too small for one full pile gets one pile of fewer pellets. Our own rule.
  */
-export function pilesForSurface(surfaceCm2: number, regime: 'moderate' | 'heavy'): number {
-  const base = regime === 'heavy' ? REFERENCE_PILES.development : REFERENCE_PILES.refinement;
-  const n = Math.round((base * surfaceCm2) / REFERENCE_SURFACE_CM2);
-  return Math.max(regime === 'heavy' ? 2 : 1, n);
+export function pilesForSurface(surfaceCm2: number, regime: Regime): { piles: number; pellets: { min: number; max: number } } {
+  const exact = (REFERENCE_PILES[regime] * surfaceCm2) / REFERENCE_SURFACE_CM2;
+  const p = PELLETS[regime];
+  if (exact >= 1) return { piles: Math.round(exact), pellets: { ...p } };
+  return {
+    piles: 1,
+    pellets: { min: Math.max(1, Math.floor(p.min * exact)), max: Math.max(1, Math.round(p.max * exact)) },
+  };
 }
 
 export interface FeedingInput {
@@ -27,63 +43,100 @@ export interface FeedingInput {
   season: Season;
   shoot: ShootState;
   species: WizardSpecies;
+  technique?: Technique;
   container?: ContainerInput;
   recentlyCollected?: boolean;
   weak: boolean;
+  tropics?: boolean;
+  /** A double-flush pine whose candles are being cut or whose second flush is extending. */
+  secondFlush?: boolean;
+}
+
+/** Slow species that need little feeding: five-needle pines and low-vigour species. */
+export function isLightFeeder(species: WizardSpecies, technique?: Technique): boolean {
+  return technique === 'pine-five' || species.needlesPerFascicle === 5 || species.vigour === 'low';
 }
 
 export function feedingPlan(f: FeedingInput): FertilizerPlan {
   const reasons: Reason[] = [];
-  // A collected tree that is not weak is fed generously to build roots; a weak tree moderately.
-  const regime: 'moderate' | 'heavy' =
-    f.stage === 'development' || (f.stage === 'recovery' && f.recentlyCollected && !f.weak) ? 'heavy' : 'moderate';
-  const holdBack = f.stage === 'refinement' && f.species.feedingNeedleResponse === 'strong';
+  const light = isLightFeeder(f.species, f.technique);
+  const collected = f.stage === 'recovery' && !!f.recentlyCollected;
 
+  let regime: Regime | null;
   let purpose: string;
-  if (f.stage === 'refinement') {
+  if (collected) {
+    regime = null;
+    reasons.push(reason('feed.purpose-recovery-collected'));
+    purpose = 'New roots first: no pellets until new roots and new shoots show, then very light feeding.';
+  } else if (f.stage === 'recovery') {
+    regime = 'light';
+    reasons.push(reason('feed.purpose-recovery-weak'));
+    purpose = 'Rebuild strength gently with light, steady feeding.';
+  } else if (f.stage === 'refinement') {
+    regime = light ? 'light' : 'moderate';
     reasons.push(reason('feed.purpose-refinement'), reason('feed.refinement-pellets'), reason('feed.not-heavy-in-refinement'));
-    purpose = 'Give the candles strength to redistribute after pinching, without coarse growth.';
-  } else if (f.stage === 'development') {
+    purpose = 'Steady strength for new buds, without coarse growth.';
+  } else {
+    regime = light ? 'moderate' : 'heavy';
     reasons.push(reason('feed.purpose-development'), reason('feed.development-pellets'));
     purpose = 'Vigour: build the foliage that sets back buds.';
-  } else {
-    reasons.push(reason('feed.purpose-recovery'));
-    purpose = 'Rebuild roots and strength.';
   }
+  if (light && !collected) reasons.push(reason('feed.light-feeder'));
+  const holdBack = f.stage === 'refinement' && f.species.feedingNeedleResponse === 'strong';
   if (holdBack) reasons.push(reason('feed.hold-back-strong-needle-response'));
-  reasons.push(reason('feed.why-organic'));
+  if (f.secondFlush) reasons.push(reason('feed.ease-second-flush'));
+  if (regime) reasons.push(reason('feed.why-organic'));
 
   let surfaceCm2: number | null = null;
   let piles: number | null = null;
-  if (f.container) {
-    surfaceCm2 = Math.round(surfaceAreaCm2(f.container));
-    piles = pilesForSurface(surfaceCm2, regime);
-    reasons.push(reason('feed.pile-scaling', `Your ${describeContainer(f.container)} has about ${surfaceCm2} cm² of soil: ${piles} piles.`));
-  } else {
+  let pellets: { min: number; max: number } | null = regime ? { ...PELLETS[regime] } : null;
+  if (f.container) surfaceCm2 = Math.round(surfaceAreaCm2(f.container));
+  if (regime && surfaceCm2 !== null) {
+    const fit = pilesForSurface(surfaceCm2, regime);
+    piles = fit.piles;
+    pellets = fit.pellets;
+    reasons.push(reason('feed.pile-scaling', `Your ${describeContainer(f.container!)} has about ${surfaceCm2} cm² of soil: ${piles} ${piles === 1 ? 'pile' : 'piles'} of ${pellets.min}–${pellets.max} pellets.`));
+  } else if (regime) {
     reasons.push(reason('feed.mid-sized-pot'));
   }
+  if (regime) reasons.push(reason('feed.renew'));
 
   let feedNow = true;
-  let window = f.stage === 'recovery' ? 'Spring through autumn, steadily' : 'Spring through autumn';
+  let resumeWhen: string | null = null;
+  let window = f.stage === 'recovery' ? 'Spring through autumn, lightly and steadily' : 'Spring through autumn';
   if (holdBack) window = 'From when this year’s needles have hardened until the end of autumn';
-  if (f.season === 'winter') {
+  if (f.secondFlush) window = 'Spring until the candles are cut; again once the second flush has hardened, until the end of autumn';
+  if (collected) {
+    feedNow = false;
+    window = 'Once new roots and new shoots show: very light feeding';
+    resumeWhen = 'Start very light feeding once new roots show at the drainage holes and new shoots are growing.';
+  } else if (f.season === 'winter' && !f.tropics) {
     feedNow = false;
     reasons.push(reason('feed.winter-none'));
-  } else if (holdBack && f.season === 'spring' && f.shoot !== 'needles-hardened') {
+    resumeWhen = 'Start feeding again when the buds swell in spring.';
+  } else if (f.secondFlush) {
     feedNow = false;
+    resumeWhen = 'Start feeding again once the second flush’s needles have hardened.';
+  } else if (holdBack && f.shoot !== 'needles-hardened') {
+    feedNow = false;
+    resumeWhen = 'Start feeding once this year’s needles have hardened.';
   }
 
-  const pellets = regime === 'heavy' ? PELLETS.heavy : PELLETS.moderate;
-  const count = piles ?? (regime === 'heavy' ? REFERENCE_PILES.development : REFERENCE_PILES.refinement);
+  const count = piles ?? (regime ? REFERENCE_PILES[regime] : 0);
   return {
     feedNow,
     window,
     purpose,
     piles,
-    pelletsPerPile: { ...pellets },
-    foliar: f.stage === 'development',
-    placement: `${piles === null ? `About ${count}` : count} piles of ${pellets.min}–${pellets.max} pellets, spaced evenly around the pot, halfway between trunk and rim.`,
+    pelletsPerPile: pellets,
+    foliar: f.stage === 'development' && !light,
+    placement: regime
+      ? `${piles === null ? `About ${count}` : count} ${count === 1 ? 'pile' : 'piles'} of ${pellets!.min}–${pellets!.max} pellets, spaced evenly around the pot, halfway between trunk and rim.`
+      : 'No pellets yet.',
     surfaceCm2,
+    pelletSize: PELLET_SIZE,
+    renewWeeks: regime ? { ...RENEW_WEEKS } : null,
+    resumeWhen,
     reasons,
   };
 }

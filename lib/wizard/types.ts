@@ -58,6 +58,8 @@ export interface WizardContext {
   latitude: number;
   /** ISO date. */
   today: string;
+  /** The club's shift of the decandle window, in days (−30 to +30); 0 when unset. */
+  decandleOffsetDays?: number;
 }
 
 export interface Reason {
@@ -86,6 +88,12 @@ export interface FertilizerPlan {
   placement: string;
   /** Soil surface in cm² when a container was given. */
   surfaceCm2: number | null;
+  /** How big a pellet is meant, in words. */
+  pelletSize: string;
+  /** How often piles are renewed, in weeks, when pellets are used. */
+  renewWeeks: { min: number; max: number } | null;
+  /** When feeding is off: what to wait for before starting again. */
+  resumeWhen: string | null;
   reasons: Reason[];
 }
 

@@ -45,9 +45,9 @@ test('a beginner on a phone runs the wizard and saves the answer', async ({ page
 
   await ask.expectStep('answer');
   const action = page.getByTestId('answer-action');
-  // common practice, no published source: a soft candle beyond the silhouette is pinched, two needle pairs kept
-  await expect(action.getByRole('heading')).toHaveText('Pinch this candle');
-  await expect(page.getByTestId('keep-needles')).toHaveText('Leave at least 2 pairs of needles');
+  // source: University of Wisconsin Plant Disease Diagnostics Clinic (2015): an average candle keeps a half to two-thirds
+  await expect(action.getByRole('heading')).toHaveText(/^Shorten this candle/);
+  await expect(page.getByTestId('keep-candle')).toContainText('about a half to two-thirds of this candle');
   await expect(page.getByTestId('day-length')).toContainText('of daylight at 45.5° N');
   await expect(page.getByTestId('feeding')).toContainText('4 piles of 6–8 pellets');
   await expect(page.getByTestId('reasons')).toContainText('Source: common practice');
@@ -66,7 +66,7 @@ test('a beginner on a phone runs the wizard and saves the answer', async ({ page
   await page.getByRole('link', { name: 'Open the saved answer' }).click();
   await expect(page).toHaveURL(/\/answers\/[A-Za-z0-9_-]{10,}$/);
   await expect(page.getByTestId('asker')).toContainText('Wren Alder');
-  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Pinch this candle');
+  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText(/^Shorten this candle/);
   await page.getByLabel('What happened since').fill('pinched on 12 May; second elongation by 1 June');
   await page.getByRole('button', { name: 'Save changes' }).click();
   await expect(page.getByText('Saved.')).toBeVisible();
@@ -100,8 +100,8 @@ test('a link pre-fills species and pot; a development branch skips the outline q
   await expect(page.getByLabel('Diameter (cm)')).toHaveValue('30');
   await page.getByLabel('Date you looked at the tree').fill('2027-08-01');
   await ask.next();
-  // common practice, no published source: back buds present and needles hardened in development → prune, two pairs kept
-  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Prune the tip');
+  // common practice, no published source: back buds present and needles hardened in development → cut back to them
+  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Cut this shoot back, leaving at least 2 needle pairs');
   await expect(page.getByTestId('feeding')).toContainText('10–12 pellets');
   await expect(page.getByRole('link', { name: 'Sign in to save it' })).toBeVisible();
   await page.setViewportSize({ width: 360, height: 740 });
@@ -118,7 +118,7 @@ test('a link pre-fills species and pot; a development branch skips the outline q
   await form.getByLabel('Password').fill('candlewise-demo');
   await form.getByRole('button', { name: 'Sign in' }).click();
   await expect(page).toHaveURL(/\/ask\?step=answer/);
-  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Prune the tip');
+  await expect(page.getByTestId('answer-action').getByRole('heading')).toHaveText('Cut this shoot back, leaving at least 2 needle pairs');
   await page.getByLabel('Who can see it').selectOption('club');
   await page.getByRole('button', { name: 'Save answer' }).click();
   await expect(page.getByTestId('saved')).toBeVisible();

@@ -11,10 +11,15 @@ const body = {
 
 describe('POST /api/wizard/evaluate', () => {
   it('answers the contract fields for a public request', async () => {
-    // common practice, no published source: a soft candle beyond the silhouette of a single-flush pine is pinched, two pairs kept
-    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
+    // source: University of Wisconsin Plant Disease Diagnostics Clinic (2015): remove half to two-thirds of a strong candle
+    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, candleStrength: 'strong', container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
     expect(r.status).toBe(200);
-    expect(r.body).toMatchObject({ action: 'pinch', stage: 'refinement', season: 'spring', keepNeedlePairs: 2, engineVersion: expect.any(String), speciesRevision: expect.any(Number) });
+    expect(r.body).toMatchObject({
+      action: 'pinch', stage: 'refinement', season: 'spring', keepNeedlePairs: null, keepNeedleBundles: null,
+      candleKeep: { min: 0.33, max: 0.5 }, engineVersion: '2.0.0', speciesRevision: expect.any(Number),
+    });
+    expect(r.body.howTo.length).toBeGreaterThan(1);
+    expect(r.body.terms.map((t: { term: string }) => t.term)).toContain('candle');
     for (const x of r.body.reasons) expect(Object.keys(x).sort()).toEqual(['rule', 'source', 'text']);
     for (const x of r.body.cautions) expect(Object.keys(x).sort()).toEqual(['source', 'text']);
     expect(r.body.fertilizer).toMatchObject({ feedNow: true, window: expect.any(String), piles: 4, pelletsPerPile: { min: 6, max: 8 }, foliar: false });
@@ -28,18 +33,32 @@ describe('POST /api/wizard/evaluate', () => {
     expect(r.body.fertilizer.pelletsPerPile).toEqual({ min: 6, max: 8 });
   });
 
-  it('lets the hemisphere win over the latitude and falls back to the club setting', async () => {
+  it('reads the hemisphere from the latitude and falls back to the club setting', async () => {
     // common practice, no published source: south shifted six months
     const oct = { ...body, date: '2027-10-15' };
-    expect((await anon().json('/api/wizard/evaluate', 'POST', { ...oct, hemisphere: 'south', latitude: 50 })).body.season).toBe('spring');
+    expect((await anon().json('/api/wizard/evaluate', 'POST', { ...oct, hemisphere: 'south', latitude: -50 })).body.season).toBe('spring');
     expect((await anon().json('/api/wizard/evaluate', 'POST', { ...oct, latitude: -34 })).body.season).toBe('spring');
     expect((await anon().json('/api/wizard/evaluate', 'POST', oct)).body.season).toBe('autumn'); // club: north
   });
 
   it('decandles a strong double-flush pine in early summer', async () => {
     // common practice, no published source
-    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20' });
+    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20', shoot: 'needles-opening' });
     expect(r.body.action).toBe('decandle');
+    // …but not while its candles are still extending, nor when it was repotted this year.
+    const extending = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20' });
+    expect(extending.body.action).toBe('let-grow');
+    const repotted = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20', shoot: 'needles-opening', repottedThisYear: true });
+    expect(repotted.body.action).not.toBe('decandle');
+    // A low heat sum holds it back (our own threshold).
+    const cold = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20', shoot: 'needles-opening', degreeDays: 120 });
+    expect(cold.body.action).toBe('wait');
+  });
+
+  it('refuses a hemisphere and latitude that disagree, naming both fields', async () => {
+    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, hemisphere: 'north', latitude: -35 });
+    expect(r.status).toBe(400);
+    expect(Object.keys(r.body.error.fields).sort()).toEqual(['hemisphere', 'latitude']);
   });
 
   it('404s an unknown species', async () => {
@@ -57,6 +76,9 @@ describe('POST /api/wizard/evaluate', () => {
     [{ ...body, container: { shape: 'oval', lengthCm: 30 } }, 'container.widthCm'],
     [{ ...body, container: { shape: 'round', lengthCm: -3 } }, 'container.lengthCm'],
     [{ ...body, species: 'Robert; drop table' }, 'species'],
+    [{ ...body, candleStrength: 'huge' }, 'candleStrength'],
+    [{ ...body, repottedThisYear: 'yes' }, 'repottedThisYear'],
+    [{ ...body, degreeDays: -4 }, 'degreeDays'],
   ])('400s a bad body and names the field (%#)', async (b, field) => {
     const r = await anon().json('/api/wizard/evaluate', 'POST', b);
     expect(r.status).toBe(400);

@@ -76,24 +76,24 @@ describe('due now for a tree', () => {
     }
   });
 
-  it('in the northern spring: candles extending, time to check for pinching; in winter: no feeding', async () => {
+  it('says what to look for this month, never an action: spring lists candle states with conditional answers', async () => {
     await setHemisphere('north');
     const spring = (await dueNowForTree(tree(), null, '2027-04-20'))!;
-    // common practice, no published source: refinement candles are pinched while extending
-    expect(spring.assumedShoot).toBe('candle-extending');
-    expect(spring.action).toBe('pinch');
+    // common practice, no published source: in mid-spring pine candles extend, then their needles open
+    expect(spring.lookFor.map((l) => l.shoot)).toEqual(['candle-extending', 'needles-opening']);
+    expect(spring.headline).toBe('Look for: candle extending or needles opening');
+    expect(spring.headline).not.toMatch(/shorten|pinch|prune|cut/i);
+    expect(spring.lookFor[0].ifSeen).toMatch(/Shorten this candle/);
     const winter = (await dueNowForTree(tree(), null, '2027-01-15'))!;
-    // common practice, no published source: no feeding in winter dormancy
     expect(winter.season).toBe('winter');
-    expect(winter.feedNow).toBe(false);
+    expect(winter.lookFor.map((l) => l.shoot)).toEqual(['dormant-bud']);
   });
 
-  it('summer, development branch: needles hardened, the pruning window', async () => {
+  it('defect 11: a development tree in June is not told to prune: nobody has seen back buds', async () => {
     await setHemisphere('north');
-    const d = (await dueNowForTree(tree(), 'development', '2027-08-10'))!;
-    // common practice, no published source: prune development branches once needles harden
-    expect(d.assumedShoot).toBe('needles-hardened');
-    expect(d.action).toBe('prune');
+    const d = (await dueNowForTree(tree(), 'development', '2027-06-15'))!;
+    expect(d.headline).toMatch(/^Look for:/);
+    for (const l of d.lookFor) expect(l.ifSeen).not.toMatch(/^Cut this shoot back/);
   });
 
   it('follows the club’s hemisphere: July is winter in the south', async () => {
@@ -101,7 +101,7 @@ describe('due now for a tree', () => {
     const d = (await dueNowForTree(tree(), null, '2027-07-15'))!;
     // common practice, no published source: the southern calendar is shifted six months
     expect(d.season).toBe('winter');
-    expect(d.feedNow).toBe(false);
+    expect(d.feedingWindow).toMatch(/spring/i);
     expect(d.hemisphere).toBe('south');
     await setHemisphere('north');
     expect((await dueNowForTree(tree(), null, '2027-07-15'))!.season).toBe('summer');
@@ -112,9 +112,9 @@ describe('due now for a tree', () => {
     const d = (await dueNowForTree(tree({ collectedFromWild: true, collectedOn: '2027-02-01' }), null, '2027-04-20'))!;
     // common practice, no published source: collected trees recover before any pinching
     expect(d.stage).toBe('recovery');
-    expect(d.action).toBe('let-grow');
+    expect(d.lookFor.every((l) => l.ifSeen === 'Let it grow')).toBe(true);
     expect(await dueNowForTree(tree({ speciesSlug: 'pinus-imaginaria' }), null, '2027-04-20')).toBeNull();
     const heads = await dueNowHeadlines([tree(), tree({ id: 'tree-bbbbbbbbbbbb', speciesSlug: 'pinus-imaginaria' })], '2027-01-15');
-    expect(heads).toEqual({ 'tree-aaaaaaaaaaaa': 'Wait: nothing to do now' });
+    expect(heads).toEqual({ 'tree-aaaaaaaaaaaa': 'Look for: dormant bud' });
   });
 });

@@ -59,7 +59,7 @@ describe('ask machine', () => {
   });
 
   it('skips the silhouette question for a development branch and leaves the position out', async () => {
-    const { actor, calls, step } = start({ answers: { species: 'pinus-sylvestris', branching: 'secondary', date: '2027-05-10', position: 'interior' }, step: 'shoot' });
+    const { actor, calls, step } = start({ answers: { species: 'pinus-sylvestris', branching: 'secondary', date: '2027-08-20', position: 'interior' }, step: 'shoot' });
     actor.send({ type: 'SET', answers: { shoot: 'needles-hardened' } });
     actor.send({ type: 'NEXT' });
     expect(step()).toBe('health');

@@ -20,16 +20,16 @@ describe('container soil surface', () => {
 describe('pile count scales with the soil surface (our own rule)', () => {
   // common practice, no published source: ~4 piles refinement, ~twice that in development, for ~1 200 cm²
   it('gives four and eight piles for a 40 × 30 cm pot', () => {
-    expect(pilesForSurface(1200, 'moderate')).toBe(4);
-    expect(pilesForSurface(1200, 'heavy')).toBe(8);
+    expect(pilesForSurface(1200, 'moderate').piles).toBe(4);
+    expect(pilesForSurface(1200, 'heavy').piles).toBe(8);
   });
-  it('grows with the area and never falls below one (two when heavy)', () => {
-    expect(pilesForSurface(2400, 'moderate')).toBe(8);
-    expect(pilesForSurface(600, 'moderate')).toBe(2);
-    expect(pilesForSurface(50, 'moderate')).toBe(1);
-    expect(pilesForSurface(50, 'heavy')).toBe(2);
+  it('grows with the area; a pot too small for a full pile gets one smaller pile', () => {
+    expect(pilesForSurface(2400, 'moderate').piles).toBe(8);
+    expect(pilesForSurface(600, 'moderate').piles).toBe(2);
+    expect(pilesForSurface(50, 'moderate')).toEqual({ piles: 1, pellets: { min: 1, max: 1 } });
+    expect(pilesForSurface(50, 'heavy').piles).toBe(1);
     for (const a of [200, 500, 900, 1200, 1800, 3000]) {
-      expect(pilesForSurface(a, 'heavy')).toBeGreaterThanOrEqual(pilesForSurface(a, 'moderate'));
+      expect(pilesForSurface(a, 'heavy').piles).toBeGreaterThanOrEqual(pilesForSurface(a, 'moderate').piles);
     }
   });
 });
@@ -59,7 +59,7 @@ describe('feeding plan', () => {
 
   it('pellets per pile do not scale with the pot', () => {
     // common practice, no published source
-    const small = feedingPlan({ ...base, stage: 'refinement', season: 'summer', species: scots, container: { shape: 'round', lengthCm: 15 } });
+    const small = feedingPlan({ ...base, stage: 'refinement', season: 'summer', species: scots, container: { shape: 'round', lengthCm: 25 } });
     const big = feedingPlan({ ...base, stage: 'refinement', season: 'summer', species: scots, container: { shape: 'oval', lengthCm: 70, widthCm: 50 } });
     expect(small.pelletsPerPile).toEqual(big.pelletsPerPile);
     expect(big.piles!).toBeGreaterThan(small.piles!);
@@ -91,21 +91,23 @@ describe('feeding plan', () => {
     expect(spring.reasons.map((r) => r.rule)).toContain('feed.hold-back-strong-needle-response');
     const hardened = feedingPlan({ ...base, shoot: 'needles-hardened', stage: 'refinement', season: 'spring', species: mugo });
     expect(hardened.feedNow).toBe(true);
-    expect(feedingPlan({ ...base, stage: 'refinement', season: 'summer', species: mugo }).feedNow).toBe(true);
+    // The shoot decides, not the calendar: candles still extending in summer are still held back.
+    expect(feedingPlan({ ...base, stage: 'refinement', season: 'summer', species: mugo }).feedNow).toBe(false);
+    expect(feedingPlan({ ...base, shoot: 'needles-hardened', stage: 'refinement', season: 'summer', species: mugo }).feedNow).toBe(true);
     // not held back in development, nor for a species with a moderate response
     expect(feedingPlan({ ...base, stage: 'development', season: 'spring', species: mugo }).feedNow).toBe(true);
     expect(feedingPlan({ ...base, stage: 'refinement', season: 'spring', species: blackPine }).feedNow).toBe(true);
   });
 
-  it('recovery: generous feeding for a collected tree, moderate for a weak one', () => {
-    // common practice, no published source
+  it('recovery: no pellets for a collected tree until roots show, light feeding for a weak one', () => {
+    // source: University of Maryland Extension, "After planting care"; weak-tree rate: common practice, no published source
     const collected = feedingPlan({ ...base, stage: 'recovery', season: 'summer', species: scots, recentlyCollected: true, container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
-    expect(collected.pelletsPerPile).toEqual({ min: 10, max: 12 });
-    expect(collected.piles).toBe(8);
-    expect(collected.reasons[0].rule).toBe('feed.purpose-recovery');
+    expect(collected).toMatchObject({ feedNow: false, piles: null, pelletsPerPile: null, renewWeeks: null });
+    expect(collected.reasons[0].rule).toBe('feed.purpose-recovery-collected');
     const weak = feedingPlan({ ...base, stage: 'recovery', season: 'summer', species: scots, weak: true, container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
-    expect(weak.pelletsPerPile).toEqual({ min: 6, max: 8 });
-    expect(weak.piles).toBe(4);
+    expect(weak.pelletsPerPile).toEqual({ min: 3, max: 4 });
+    expect(weak.piles).toBe(3);
+    expect(weak.reasons[0].rule).toBe('feed.purpose-recovery-weak');
   });
 });
 

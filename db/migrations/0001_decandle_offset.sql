@@ -1,0 +1,1 @@
+ALTER TABLE "club_settings" ADD COLUMN "decandle_offset_days" integer DEFAULT 0 NOT NULL;
