@@ -1,5 +1,5 @@
 'use client';
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import useSWR from 'swr';
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { SortableTable } from '@/components/sortable-table';
@@ -81,8 +81,7 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
     }
   }
 
-  // A plain render function, not a component: a component declared here would remount on every
-  // render and drop the focus from the select being changed.
+  // A plain render function, not a component declared here (that would remount on every render).
   function rowControls(u: UserDto, layout: 'row' | 'card') {
     const d = draftOf(u);
     const self = u.id === currentUserId;
@@ -156,15 +155,20 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
     );
   }
 
-  const columns = [
-    col.accessor('name', { header: 'Name', cell: (c) => c.getValue() ?? '—' }),
-    col.accessor('email', { header: 'E-mail', cell: (c) => <span className="break-all">{c.getValue()}</span> }),
-    col.accessor('role', {
-      header: 'Role and account',
-      cell: (c) => rowControls(c.row.original, 'row'),
-    }),
-    col.accessor('createdAt', { header: 'Joined', cell: (c) => c.getValue().slice(0, 10) }),
-  ];
+  // tanstack renders a cell function as a component: it must keep its identity across renders,
+  // or every render would remount the row's controls and drop the focus. The stable cell reads
+  // the current render function through a ref.
+  const controlsRef = useRef(rowControls);
+  controlsRef.current = rowControls;
+  const columns = useMemo(
+    () => [
+      col.accessor('name', { header: 'Name', cell: (c) => c.getValue() ?? '—' }),
+      col.accessor('email', { header: 'E-mail', cell: (c) => <span className="break-all">{c.getValue()}</span> }),
+      col.accessor('role', { header: 'Role and account', cell: (c) => controlsRef.current(c.row.original, 'row') }),
+      col.accessor('createdAt', { header: 'Joined', cell: (c) => c.getValue().slice(0, 10) }),
+    ],
+    [],
+  );
 
   const table = useReactTable({
     data: items,

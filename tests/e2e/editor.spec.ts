@@ -1,0 +1,74 @@
+import { expect, test } from '@playwright/test';
+import { SignInPage, screenshotPath } from './pages/auth';
+import { SpeciesEditPage, expectNoPageOverflow } from './pages/species';
+
+const SLUG = 'pinus-aristata';
+
+test('a draft may wait for a citation; publishing from the preview needs it; history says what changed per trait', async ({ page }) => {
+  await new SignInPage(page).withPassword('editor@candlewise.test');
+  const edit = new SpeciesEditPage(page);
+  await edit.open(SLUG);
+  const vigour = page.getByTestId('field-vigour');
+  await expect(vigour.getByLabel('Citation (needed to publish; a draft can wait)')).toBeVisible();
+  // The save bar stays on screen at the top of a long form.
+  await expect(page.getByTestId('form-actions')).toBeInViewport();
+  await page.screenshot({ path: screenshotPath('species-edit-sticky-desktop') });
+
+  // Vigour: low → high, a published value whose citation is still to be found.
+  await vigour.getByLabel('Value').selectOption('high');
+  await vigour.getByLabel('Source').selectOption('published');
+  await vigour.getByLabel(/Citation/).fill('');
+  await edit.appendToNotes('- pinch the strongest candles first\n- leave the weak ones');
+  await edit.saveDraft('Raise vigour; citation to follow');
+  const notice = page.getByTestId('focus-notice');
+  await expect(notice).toContainText('Saved as draft revision');
+  await expect(notice).toBeFocused();
+
+  // Publishing straight from the preview is refused, naming the missing citation.
+  await page.getByTestId('publish-draft').click();
+  const refusal = page.getByRole('alert').filter({ hasText: 'missing citations' });
+  await expect(refusal).toContainText('the citation of Vigour');
+  await expect(refusal).toBeFocused();
+
+  await edit.open(SLUG);
+  await page.getByTestId('field-vigour').getByLabel(/Citation/).fill('Great Basin field guide (2004)');
+  await edit.saveDraft('Add the vigour citation');
+  await expect(page.getByTestId('revision-banner')).toContainText('a draft');
+  await page.screenshot({ path: screenshotPath('species-draft-preview-desktop'), fullPage: true });
+  await page.getByTestId('publish-draft').click();
+  await expect(page.getByTestId('focus-notice')).toContainText('Published: revision');
+  await expect(page.getByTestId('focus-notice')).toBeFocused();
+  await expect(page.getByTestId('trait-vigour')).toContainText('High');
+  await expect(page.getByTestId('revision-banner')).toHaveCount(0);
+
+  // History: the published copy is identical to the draft before it, so the default comparison
+  // skips it and shows the last real change, per trait, in words.
+  await page.goto(`/species/${SLUG}/history`);
+  await expect(page.getByTestId('revisions')).toContainText(/Same content as revision \d+/);
+  const changes = page.getByTestId('trait-changes');
+  await expect(changes).toContainText('Vigour: High; source: published, citation to come → Great Basin field guide (2004)');
+  await page.screenshot({ path: screenshotPath('species-history-traits-desktop'), fullPage: true });
+
+  // From the published revision before the edits: value and source change in one line, and the
+  // appended list is added words with its bullets as text (nothing removed).
+  const options = await page.getByLabel('From').locator('option').allTextContents();
+  const newest = Number(options[0].match(/\d+/)![0]);
+  await page.goto(`/species/${SLUG}/history?from=1&to=${newest}`);
+  await expect(page.getByTestId('trait-changes')).toContainText('Vigour: Low → High; source: Southern Utah University tree tour: very slow → Great Basin field guide (2004)');
+  const added = page.getByTestId('body-diff').getByTestId('diff-added');
+  await expect(added).toContainText('- pinch the strongest candles first');
+  await expect(page.getByTestId('body-diff').getByTestId('diff-removed')).toHaveCount(0);
+
+  // Two identical revisions compare as "no differences".
+  await page.goto(`/species/${SLUG}/history?from=${newest - 1}&to=${newest}`);
+  await expect(page.getByTestId('no-differences')).toHaveText(`No differences: revisions ${newest - 1} and ${newest} hold the same content.`);
+
+  await page.setViewportSize({ width: 360, height: 740 });
+  await page.goto(`/species/${SLUG}/history?from=1&to=${newest}`);
+  await expectNoPageOverflow(page);
+  await page.screenshot({ path: screenshotPath('species-history-traits-360'), fullPage: true });
+  await edit.open(SLUG);
+  await expect(page.getByTestId('form-actions')).toBeInViewport();
+  await expectNoPageOverflow(page);
+  await page.screenshot({ path: screenshotPath('species-edit-sticky-360') });
+});
