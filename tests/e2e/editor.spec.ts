@@ -72,3 +72,29 @@ test('a draft may wait for a citation; publishing from the preview needs it; his
   await expectNoPageOverflow(page);
   await page.screenshot({ path: screenshotPath('species-edit-sticky-360') });
 });
+
+test('at 360 px a source tooltip and long import errors stay on screen', async ({ page, request }) => {
+  await new SignInPage(page).withPassword('editor@candlewise.test');
+  await page.setViewportSize({ width: 360, height: 740 });
+  await page.goto('/species/pinus-thunbergii');
+  for (const marker of await page.getByTestId('source-marker').all()) {
+    await marker.focus();
+    const tip = page.getByRole('tooltip').filter({ visible: true });
+    await expect(tip).toHaveCount(1);
+    const box = (await tip.boundingBox())!;
+    expect(box.x).toBeGreaterThanOrEqual(0);
+    expect(box.x + box.width).toBeLessThanOrEqual(360);
+    await expectNoPageOverflow(page);
+  }
+  await page.getByTestId('source-marker').last().focus();
+  await page.screenshot({ path: screenshotPath('species-tooltip-360') });
+
+  const good = await (await request.get('/api/species/pinus-cembra/export')).text();
+  const longName = `${'pinus-with-a-very-long-file-name-that-never-breaks'.repeat(3)}.md`;
+  const broken = good.replace(/flushHabit:\n(\s+)value: single/, `flushHabit:\n$1value: ${'x'.repeat(120)}`);
+  await page.goto('/species/import');
+  await page.getByTestId('import-files').setInputFiles([{ name: longName, mimeType: 'text/markdown', buffer: Buffer.from(broken) }]);
+  await expect(page.getByTestId('import-preview')).toContainText('traits.flushHabit.value');
+  await expectNoPageOverflow(page);
+  await page.screenshot({ path: screenshotPath('species-import-errors-360'), fullPage: true });
+});
