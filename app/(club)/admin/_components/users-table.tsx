@@ -163,9 +163,9 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
   const columns = useMemo(
     () => [
       col.accessor('name', { header: 'Name', cell: (c) => c.getValue() ?? '—' }),
-      col.accessor('email', { header: 'E-mail', cell: (c) => <span className="break-all">{c.getValue()}</span> }),
+      col.accessor('email', { header: 'E-mail', cell: (c) => <span className="[overflow-wrap:anywhere] lg:whitespace-nowrap">{c.getValue()}</span> }),
       col.accessor('role', { header: 'Role and account', cell: (c) => controlsRef.current(c.row.original, 'row') }),
-      col.accessor('createdAt', { header: 'Joined', cell: (c) => c.getValue().slice(0, 10) }),
+      col.accessor('createdAt', { header: 'Joined', cell: (c) => <span className="whitespace-nowrap">{c.getValue().slice(0, 10)}</span> }),
     ],
     [],
   );

@@ -206,15 +206,15 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
       </section>
 
       {/* The form is long: its actions stay on screen at the bottom while the editor scrolls. */}
-      <div className="sticky bottom-0 z-10 rounded-t-card border border-b-0 border-stone-300 bg-white px-4 py-3 shadow-[0_-2px_6px_rgba(0,0,0,0.08)]" data-testid="form-actions">
-        <div className="flex flex-wrap items-center gap-3">
-          <button type="button" className="btn-secondary" disabled={isSubmitting} onClick={() => { setValue('publish', false); void submit(false)(); }}>
+      <div className="sticky bottom-0 z-10 rounded-t-card border border-b-0 border-stone-300 bg-white px-3 py-3 sm:px-4 shadow-[0_-2px_6px_rgba(0,0,0,0.08)]" data-testid="form-actions">
+        <div className="flex flex-wrap items-center gap-2 sm:gap-3">
+          <button type="button" className="btn-secondary max-sm:px-3" disabled={isSubmitting} onClick={() => { setValue('publish', false); void submit(false)(); }}>
             Save as draft
           </button>
-          <button type="button" className="btn-primary" disabled={isSubmitting} onClick={() => { setValue('publish', true); void submit(true)(); }} data-testid="publish">
+          <button type="button" className="btn-primary max-sm:px-3" disabled={isSubmitting} onClick={() => { setValue('publish', true); void submit(true)(); }} data-testid="publish">
             Publish
           </button>
-          <Link href={mode === 'edit' ? `/species/${initial.slug}` : '/species'} className="btn-secondary">Cancel</Link>
+          <Link href={mode === 'edit' ? `/species/${initial.slug}` : '/species'} className="btn-secondary max-sm:px-3">Cancel</Link>
           {isSubmitting && <span role="status" className="text-sm text-stone-700">Saving…</span>}
         </div>
       </div>
