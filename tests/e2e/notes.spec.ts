@@ -31,6 +31,8 @@ test('a librarian writes a note linking a shared answer, publishes it and sends 
 
   await page.getByRole('button', { name: 'Publish' }).click();
   await expect(page.getByTestId('note-title')).toHaveText(title);
+  await expect(page.getByTestId('focus-notice')).toHaveText('Saved and published: members can read this note.');
+  await expect(page.getByTestId('focus-notice')).toBeFocused();
   const card = page.getByTestId('note-body').locator('a.link-card').first();
   await expect(card).toHaveAttribute('href', `/answers/${SHARED_ANSWER}`);
   await expect(card).toContainText('Pinch · Scots pine · 12 April 2026 · asked by Wren Alder');

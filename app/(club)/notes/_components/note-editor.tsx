@@ -79,7 +79,7 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
           ? await sendJson<{ note: NoteDto }>(`/api/notes/${note.slug}`, 'PATCH', { ...payload, expectedUpdatedAt: note.updatedAt })
           : await sendJson<{ note: NoteDto }>('/api/notes', 'POST', payload);
         await mutate((k) => typeof k === 'string' && k.startsWith('/api/notes'));
-        router.push(`/notes/${res.note.slug}`);
+        router.push(`/notes/${res.note.slug}?saved=${res.note.status}`);
         router.refresh();
       } catch (e) {
         if (e instanceof ApiError && e.body.fields) {

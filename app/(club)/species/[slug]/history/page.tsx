@@ -8,6 +8,7 @@ import { getSpeciesForViewer, listSpeciesRevisions } from '@/lib/data/species';
 import { revisionDiff, sameContent, type BodyPart } from '@/lib/species/revision-diff';
 import { slugSchema } from '@/lib/validation/species';
 import { RevertButton } from './_components/revert-button';
+import { FocusNotice } from '@/components/focus-notice';
 
 export const metadata: Metadata = { title: 'Revision history' };
 
@@ -53,6 +54,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
 
   const diff = from && to && from !== to ? revisionDiff(contents.get(from)!, contents.get(to)!) : null;
   const latest = revisions[0];
+  const reverted = int(sp.reverted);
   const optionLabel = (n: number) => (sameAsPrevious.has(n) ? `Revision ${n} (same as ${sameAsPrevious.get(n)})` : `Revision ${n}`);
 
   return (
@@ -60,6 +62,7 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       <p className="text-sm"><Link href={`/species/${slug}`}>Back to the species</Link></p>
       <h1 className="page-title">Revision history</h1>
       {!editor && <p className="text-stone-700">Published revisions only; drafts are kept by the editors.</p>}
+      {editor && reverted && latest && <FocusNotice>Reverted: revision {latest.revision} is a published copy of revision {reverted}.</FocusNotice>}
 
       <ol className="space-y-3" data-testid="revisions" aria-label="Revisions, newest first">
         {revisions.map((r) => (
