@@ -17,7 +17,9 @@ test('a role change waits for Save and a confirmation naming the person; an arro
   await role.focus();
   await role.press('ArrowDown');
   await expect(role).toHaveValue('editor');
+  await expect(role).toBeFocused();
   await expect(row.getByRole('alertdialog')).toHaveCount(0);
+  await expect(row.getByRole('button', { name: /Save changes/ })).toBeEnabled();
   await page.reload();
   await expect(page.getByTestId('user-row').filter({ hasText: 'member2@candlewise.test' }).getByLabel(/Role of Tamsin Reed/)).toHaveValue('member');
   expect(patches).toBe(0);
