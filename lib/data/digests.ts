@@ -63,6 +63,32 @@ export async function digestStatus(actor: SessionUser, slug: string): Promise<{ 
   return { sends: await sendsOf(note.id), optedIn: n, published: note.status === 'published' };
 }
 
+export interface DigestPreviewDto {
+  subject: string;
+  html: string;
+  text: string;
+  recipients: number;
+  published: boolean;
+}
+
+/**
+ * The digest exactly as a member will get it (the unsubscribe link is the viewer's own, each
+ * member gets theirs), and how many members it would go to. Writes nothing.
+ */
+export async function previewNoteDigest(actor: SessionUser, slug: string): Promise<DigestPreviewDto> {
+  requireWriter(actor);
+  const note = await getNote(actor, slug);
+  const db = await getDb();
+  const [[{ n }], settings, { html, resolutions }] = await Promise.all([
+    db.select({ n: count() }).from(users).where(optedIn),
+    getClubSettings(),
+    renderNoteWithLinks(note.body),
+  ]);
+  const baseUrl = new URL(env.NEXTAUTH_URL).origin;
+  const mail = await renderDigest({ clubName: settings.clubName, baseUrl, note, html, resolutions, unsubscribeUrl: unsubscribeUrlFor(actor.id) });
+  return { subject: mail.subject, html: mail.html, text: mail.text, recipients: n, published: note.status === 'published' };
+}
+
 export async function sendNoteDigest(
   actor: SessionUser,
   slug: string,
@@ -101,16 +127,9 @@ export async function sendNoteDigest(
   let failed = 0;
   for (const r of recipients) {
     const unsubscribeUrl = unsubscribeUrlFor(r.id);
-    const mail = renderDigest({ clubName: settings.clubName, baseUrl, note, html, resolutions, unsubscribeUrl });
     try {
-      await sendMail({
-        to: r.email,
-        ...mail,
-        headers: {
-          'List-Unsubscribe': `<${unsubscribeUrl.replace('/unsubscribe?', '/api/unsubscribe?')}>`,
-          'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
-        },
-      });
+      const mail = await renderDigest({ clubName: settings.clubName, baseUrl, note, html, resolutions, unsubscribeUrl });
+      await sendMail({ to: r.email, ...mail });
       sent++;
     } catch (e) {
       failed++;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { and, desc, eq, gte, ilike, lte, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
-import { answers, species, users } from '@/db/schema';
+import { answers, species, trees, users } from '@/db/schema';
 import { escapeLike } from '@/lib/data/users';
 import { AppError } from '@/lib/errors';
 import { canWriteNotes } from '@/lib/data/notes';
@@ -19,6 +19,10 @@ export interface LinkableAnswerDto {
   speciesName: string;
   observedOn: string;
   askerName: string;
+  /** The asker's tree the answer was about, if any: two answers on one day tell apart by it. */
+  treeName: string | null;
+  /** When it was saved (ISO), the last thing that tells two lookalike answers apart. */
+  savedAt: string;
 }
 
 export async function searchLinkableAnswers(actor: Pick<SessionUser, 'role'>, q: LinkableAnswersQuery): Promise<LinkableAnswerDto[]> {
@@ -42,10 +46,13 @@ export async function searchLinkableAnswers(actor: Pick<SessionUser, 'role'>, q:
       commonNames: species.commonNames,
       observedOn: answers.observedOn,
       askerName: users.name,
+      treeName: trees.name,
+      createdAt: answers.createdAt,
     })
     .from(answers)
     .innerJoin(users, eq(users.id, answers.userId))
     .leftJoin(species, eq(species.slug, answers.speciesSlug))
+    .leftJoin(trees, eq(trees.id, answers.treeId))
     .where(and(...conds))
     .orderBy(desc(answers.observedOn), desc(answers.createdAt))
     .limit(30);
@@ -57,5 +64,7 @@ export async function searchLinkableAnswers(actor: Pick<SessionUser, 'role'>, q:
     speciesName: r.commonNames?.[0] ?? r.botanicalName ?? r.speciesSlug,
     observedOn: r.observedOn,
     askerName: r.askerName?.trim() || 'A club member',
+    treeName: r.treeName?.trim() || null,
+    savedAt: r.createdAt.toISOString(),
   }));
 }

@@ -8,6 +8,7 @@ import type { SessionUser } from '@/lib/auth/session';
 import { hasRole } from '@/lib/auth/roles';
 import { parseSpeciesMarkdown, speciesColumns } from '@/lib/species/content';
 import {
+  missingCitations,
   speciesRecordSchema,
   type SpeciesCreateInput,
   type SpeciesImportInput,
@@ -42,6 +43,14 @@ async function writeRevision(
   actor: SessionUser,
 ): Promise<SavedRevision> {
   const status = input.publish ? 'published' : 'draft';
+  if (input.publish) {
+    // Only publishing needs every citation; a draft may wait for one.
+    const uncited = missingCitations(input.record);
+    if (Object.keys(uncited).length) {
+      const fields = Object.fromEntries(Object.entries(uncited).map(([k, v]) => [`record.${k}`, v]));
+      throw new AppError('invalid:citation', 'Add the missing citations before publishing, or save as a draft.', fields);
+    }
+  }
   await tx.insert(speciesRevisions).values({
     speciesId: row.id,
     revision,

@@ -4,7 +4,10 @@ import { visit } from 'unist-util-visit';
 import type { Root, Link, Definition } from 'mdast';
 import { parseInternalLink, type InternalLink, type LinkResolution } from '@/lib/markdown/render';
 import { formatMeetingDate } from '@/lib/validation/notes';
-import { escapeHtml } from './templates';
+import { createElement } from 'react';
+import { render } from '@react-email/render';
+import { mailColors } from './layout';
+import { DigestEmail } from './digest-email';
 
 // The e-mail form of a published meeting note: an HTML part (the page's sanitized HTML with
 // links made absolute) and a plain-text part (the Markdown, links resolved the same way).
@@ -69,7 +72,34 @@ export function digestText(input: Pick<DigestInput, 'baseUrl' | 'note' | 'resolu
   return remark().use(remarkGfm).stringify(tree).trimEnd();
 }
 
-export function renderDigest(input: DigestInput): DigestMail {
+/**
+ * Inline styles for the classes the shared Markdown pipeline puts on preview cards (mail programs
+ * drop <style> blocks): the body HTML is sanitized, so its class attributes are ours alone.
+ */
+const inlineByClass: Record<string, string> = {
+  'link-card': `display:inline-block;border:1px solid ${mailColors.mossLine};background:${mailColors.mossWash};border-radius:8px;padding:2px 8px;text-decoration:none;color:${mailColors.moss}`,
+  'link-card-title': 'display:block;font-weight:600;text-decoration:underline',
+  'link-card-meta': `display:block;font-size:14px;color:${mailColors.muted};text-decoration:none`,
+  'link-note': `font-style:italic;color:${mailColors.faint};font-size:14px`,
+  'link-unavailable': `color:${mailColors.ink}`,
+};
+
+export function inlineBodyStyles(html: string): string {
+  return html.replace(/<(a|span|p|div)\b([^>]*?)\sclass="([^"]*)"/g, (all, tag: string, before: string, cls: string) => {
+    const style = cls.split(/\s+/).map((c) => inlineByClass[c]).filter(Boolean).join(';');
+    return style ? `<${tag}${before} class="${cls}" style="${style}"` : all;
+  });
+}
+
+/** The headers that let mail programs offer a one-click unsubscribe (RFC 2369, RFC 8058). */
+export function digestHeaders(unsubscribeUrl: string): Record<string, string> {
+  return {
+    'List-Unsubscribe': `<${unsubscribeUrl.replace('/unsubscribe?', '/api/unsubscribe?')}>`,
+    'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
+  };
+}
+
+export async function renderDigest(input: DigestInput): Promise<DigestMail & { headers: Record<string, string> }> {
   const { note, clubName, baseUrl, unsubscribeUrl } = input;
   const when = formatMeetingDate(note.meetingDate);
   const noteUrl = `${baseUrl}/notes/${note.slug}`;
@@ -85,26 +115,8 @@ export function renderDigest(input: DigestInput): DigestMail {
     `Read it on the club site: ${noteUrl}`,
     `You get these because you asked for meeting notes by e-mail. Stop them: ${unsubscribeUrl}`,
   ].join('\n');
-  const html = `<!doctype html>
-<html lang="en"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title>
-<style>
-body{font-family:system-ui,sans-serif;color:#1f1f1c;line-height:1.55;max-width:40rem;margin:0 auto;padding:16px}
-a{color:#33522c}
-.link-card{display:inline-block;border:1px solid #9dbf8e;background:#f3f7f1;border-radius:8px;padding:2px 8px;text-decoration:none}
-.link-card-title{display:block;font-weight:600;text-decoration:underline}
-.link-card-meta{display:block;font-size:14px;color:#484842}
-.link-note{font-style:italic;color:#5c5c53;font-size:14px}
-.foot{margin-top:32px;border-top:1px solid #dcdcd5;padding-top:12px;font-size:14px;color:#5c5c53}
-</style></head>
-<body>
-<p style="text-transform:uppercase;letter-spacing:.05em;font-size:13px;color:#5c4533">${escapeHtml(clubName)} · meeting of ${escapeHtml(when)}</p>
-<h1 style="font-family:Georgia,serif;color:#233721">${escapeHtml(note.title)}</h1>
-<p>Written by ${escapeHtml(note.authorName)}</p>
-${absolutiseHtml(input.html, baseUrl)}
-<div class="foot">
-<p><a href="${escapeHtml(noteUrl)}">Read it on the club site</a></p>
-<p>You get these because you asked for meeting notes by e-mail. <a href="${escapeHtml(unsubscribeUrl)}">Stop these e-mails</a>.</p>
-</div>
-</body></html>`;
-  return { subject, html, text };
+  const html = await render(
+    createElement(DigestEmail, { clubName, when, title: note.title, authorName: note.authorName, bodyHtml: inlineBodyStyles(absolutiseHtml(input.html, baseUrl)), noteUrl, unsubscribeUrl, subject }),
+  );
+  return { subject, html, text, headers: digestHeaders(unsubscribeUrl) };
 }

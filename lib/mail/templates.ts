@@ -1,11 +1,10 @@
 import 'server-only';
+import { createElement } from 'react';
+import { render } from '@react-email/render';
 import { sendMail } from './transport';
+import { SignInEmail } from './sign-in-email';
 
-export function escapeHtml(s: string) {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-}
-
-export function signInLinkMail(url: string) {
+export async function signInLinkMail(url: string) {
   const text = [
     'Sign in to Candlewise',
     '',
@@ -14,12 +13,10 @@ export function signInLinkMail(url: string) {
     '',
     'If you did not ask for it, ignore this message: nobody can sign in without the link.',
   ].join('\n');
-  const html = `<p>Open this link to sign in to Candlewise. It works once and expires in 15 minutes.</p>
-<p><a href="${escapeHtml(url)}">Sign in to Candlewise</a></p>
-<p>If you did not ask for it, ignore this message: nobody can sign in without the link.</p>`;
+  const html = await render(createElement(SignInEmail, { url }));
   return { subject: 'Your Candlewise sign-in link', text, html };
 }
 
 export async function sendSignInLink(to: string, url: string) {
-  await sendMail({ to, ...signInLinkMail(url) });
+  await sendMail({ to, ...(await signInLinkMail(url)) });
 }

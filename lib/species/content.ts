@@ -2,7 +2,7 @@ import matter from 'gray-matter';
 import YAML from 'yaml';
 import type { FieldErrors } from '@/lib/errors';
 import { fieldErrorsOf } from '@/lib/validation/fields';
-import { speciesRecordSchema, type SpeciesRecord } from '@/lib/validation/species';
+import { missingCitations, speciesRecordSchema, type SpeciesRecord } from '@/lib/validation/species';
 
 // A species file is YAML front matter (the species record) and a Markdown body (care notes).
 // Parsing never throws: a broken file comes back with its errors per field, so the import
@@ -41,6 +41,9 @@ export function parseSpeciesMarkdown(source: string): ParsedSpecies {
   }
   const result = speciesRecordSchema.safeParse(data);
   if (!result.success) return { ok: false, message: 'Some fields are not valid.', fields: fieldErrorsOf(result.error) };
+  // A species file is published content: every published value carries its citation.
+  const uncited = missingCitations(result.data);
+  if (Object.keys(uncited).length) return { ok: false, message: 'Some published values have no citation.', fields: uncited };
   return { ok: true, record: result.data, body: body + (body ? '\n' : '') };
 }
 

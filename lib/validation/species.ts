@@ -20,19 +20,28 @@ export const shootHabits = ['uninodal', 'multinodal', 'not-applicable'] as const
 export const levels = ['low', 'moderate', 'high'] as const;
 export const needleResponses = ['slight', 'moderate', 'strong'] as const;
 
-/** A trait value with where it came from. `published` needs a citation. */
+/**
+ * A trait value with where it came from. A draft may hold a `published` value whose citation is
+ * still to be found; publishing checks `missingCitations` (the editorial write and the species files).
+ */
 export function trait<T extends z.ZodType>(value: T) {
-  return z
-    .object({
-      value,
-      provenance: z.enum(provenanceKinds, { error: 'Say where this value comes from: published, common-practice or from-memory.' }),
-      citation: z.string().trim().max(400).optional(),
-      note: z.string().trim().max(400).optional(),
-    })
-    .refine((t) => t.provenance !== 'published' || !!t.citation, {
-      error: 'A published value needs its citation.',
-      path: ['citation'],
-    });
+  return z.object({
+    value,
+    provenance: z.enum(provenanceKinds, { error: 'Say where this value comes from: published, common-practice or from-memory.' }),
+    citation: z.string().trim().max(400).optional(),
+    note: z.string().trim().max(400).optional(),
+  });
+}
+
+export const CITATION_NEEDED = 'A published value needs its citation before the species is published.';
+
+/** Field paths (`traits.<name>.citation`) of published values that have no citation yet. */
+export function missingCitations(rec: { traits: Record<string, { provenance: ProvenanceKind; citation?: string }> }): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const [k, t] of Object.entries(rec.traits)) {
+    if (t.provenance === 'published' && !t.citation?.trim()) out[`traits.${k}.citation`] = [CITATION_NEEDED];
+  }
+  return out;
 }
 
 export const slugSchema = z

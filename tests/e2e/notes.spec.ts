@@ -14,18 +14,26 @@ test('a librarian writes a note linking a shared answer, publishes it and sends 
   await page.getByLabel('Note (Markdown)').press('End');
   await editor.insertSharedAnswer('scots', 'Wren Alder');
   const body = page.getByLabel('Note (Markdown)');
-  await expect(body).toHaveValue(`We looked again at [pinch on Scots pine](/answers/${SHARED_ANSWER})`);
-  await body.press('End');
+  // Each link goes on a line of its own, so two in a row never run together.
+  await expect(body).toHaveValue(`We looked again at \n[pinch on Scots pine](/answers/${SHARED_ANSWER})\n`);
+  // The picker tells lookalike answers apart: member and tree beside action, species and date.
+  await expect(page.getByTestId('picker-answer').filter({ hasText: 'Wren Alder' }).first()).toContainText(/tree “[^”]+”|no tree named/);
+  await page.getByTestId('picker-answers').getByRole('button', { name: /^Insert link to/ }).first().click();
+  await expect(body).toHaveValue(new RegExp(`^We looked again at \\n\\[pinch on Scots pine\\]\\(/answers/${SHARED_ANSWER}\\)\\n\\[[^\\]]+\\]\\(/answers/\\w+\\)\\n$`));
+  await page.screenshot({ path: screenshotPath('note-picker-desktop'), fullPage: true });
+  await body.press('ControlOrMeta+End');
   await body.pressSequentially(' and agreed to pinch early.\n\n<script>alert(1)</script>');
   const preview = page.getByTestId('note-preview');
-  await expect(preview.locator('a.link-card')).toContainText('asked by Wren Alder');
+  await expect(preview.locator('a.link-card').first()).toContainText('asked by Wren Alder');
   await expect(preview).toContainText('agreed to pinch early');
   await expect(preview.locator('script')).toHaveCount(0);
   await page.screenshot({ path: screenshotPath('note-editor-desktop'), fullPage: true });
 
   await page.getByRole('button', { name: 'Publish' }).click();
   await expect(page.getByTestId('note-title')).toHaveText(title);
-  const card = page.getByTestId('note-body').locator('a.link-card');
+  await expect(page.getByTestId('focus-notice')).toHaveText('Saved and published: members can read this note.');
+  await expect(page.getByTestId('focus-notice')).toBeFocused();
+  const card = page.getByTestId('note-body').locator('a.link-card').first();
   await expect(card).toHaveAttribute('href', `/answers/${SHARED_ANSWER}`);
   await expect(card).toContainText('Pinch · Scots pine · 12 April 2026 · asked by Wren Alder');
   await page.screenshot({ path: screenshotPath('note-desktop'), fullPage: true });
@@ -38,11 +46,27 @@ test('a librarian writes a note linking a shared answer, publishes it and sends 
   await page.emulateMedia({ media: 'screen' });
 
   const digest = page.getByTestId('send-digest');
+  const optedIn = Number((await digest.getByText(/members? asked for meeting notes/).innerText()).match(/(\d+) member/)![1]);
   await digest.getByRole('button', { name: 'Send to members' }).click();
+  // First a preview, as a member will get it, with the number of recipients; nothing is sent yet.
+  const digestPreview = digest.getByTestId('digest-preview');
+  await expect(digestPreview.getByRole('heading', { name: 'Check the e-mail before it goes out' })).toBeFocused();
+  await expect(digestPreview.getByTestId('digest-recipients')).toHaveText(`It goes to ${optedIn} member${optedIn === 1 ? '' : 's'}, one message each with their own link to stop them.`);
+  const htmlPart = digestPreview.frameLocator('[data-testid=digest-preview-html]');
+  await expect(htmlPart.getByRole('heading', { level: 1 })).toHaveText(title);
+  await expect(htmlPart.getByText('asked by Wren Alder').first()).toBeVisible();
+  await expect(htmlPart.getByRole('link', { name: 'Stop these e-mails' })).toHaveAttribute('href', /\/unsubscribe\?token=/);
+  await page.screenshot({ path: screenshotPath('digest-preview-desktop'), fullPage: true });
+  await digestPreview.getByRole('button', { name: 'As plain text' }).click();
+  await expect(digestPreview.getByTestId('digest-preview-text')).toContainText('Stop them: http');
+  await expect(page.getByTestId('digest-sends')).toHaveCount(0);
+  await digestPreview.getByRole('button', { name: `Send to ${optedIn} member${optedIn === 1 ? '' : 's'}` }).click();
   await expect(digest.getByRole('status')).toContainText(/Sent to \d+ members/);
+  await expect(digest.getByRole('status')).toBeFocused();
   await expect(page.getByTestId('digest-sends').getByRole('listitem')).toHaveCount(1);
   // A second send asks first.
   await digest.getByRole('button', { name: 'Send to members' }).click();
+  await digest.getByRole('button', { name: /^Send to \d+ member/ }).click();
   await expect(digest.getByRole('alertdialog')).toContainText('already went out');
   await digest.getByRole('button', { name: 'Cancel' }).click();
   await expect(page.getByTestId('digest-sends').getByRole('listitem')).toHaveCount(1);
@@ -67,6 +91,16 @@ test('a librarian writes a note linking a shared answer, publishes it and sends 
   await expect(message).toHaveCount(1);
   await expect(message.getByTestId('outbox-text')).toContainText('asked by Wren Alder');
   await expect(message.getByTestId('outbox-text')).toContainText('/unsubscribe?token=');
+  // The HTML part, rendered in a sandboxed frame beside the text part.
+  await message.getByTestId('outbox-html').scrollIntoViewIfNeeded();
+  await expect(message.getByTestId('outbox-html')).toHaveAttribute('sandbox', '');
+  const mailHtml = message.frameLocator('[data-testid=outbox-html]');
+  await expect(mailHtml.getByRole('heading', { level: 1 })).toHaveText(title);
+  await expect(mailHtml.getByRole('link', { name: 'Stop these e-mails' })).toBeVisible();
+  await admin.screenshot({ path: screenshotPath('outbox-desktop'), fullPage: true });
+  await admin.setViewportSize({ width: 360, height: 740 });
+  expect(await admin.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+  await admin.screenshot({ path: screenshotPath('outbox-360') });
   await adminCtx.close();
 });
 

@@ -127,6 +127,8 @@ describe('notes: links, previews and backlinks', () => {
     const ids = body.items.map((a: { id: string }) => a.id);
     expect(ids).toContain(SHARED_ANSWER);
     expect(ids).not.toContain(privateAnswer);
+    // Enough to tell lookalike answers apart: the member, the tree and when it was saved.
+    expect(body.items.find((a: { id: string }) => a.id === SHARED_ANSWER)).toMatchObject({ askerName: 'Wren Alder', treeName: 'Weir-side Scots', savedAt: expect.stringMatching(/^\d{4}-\d\d-\d\dT\d\d:\d\d/) });
     expect((await librarian.json('/api/notes/linkable-answers?from=2026-13-01', 'GET')).status).toBe(400);
   });
 
@@ -151,6 +153,17 @@ describe('e-mail digest', () => {
     expect(status.body).toMatchObject({ sends: [], published: true });
     const optedIn = status.body.optedIn;
     expect(optedIn).toBeGreaterThanOrEqual(3); // member, editor, librarian opt in in the demo data
+
+    // The preview: the mail as a member gets it, the recipient count, and nothing sent.
+    const preview = await librarian.json(`/api/notes/${slug}/send?preview=1`, 'GET');
+    expect(preview.status).toBe(200);
+    expect(preview.body).toMatchObject({ recipients: optedIn, published: true, subject: expect.stringContaining('Digest evening') });
+    expect(preview.body.html).toContain('asked by Wren Alder');
+    expect(preview.body.html).not.toContain(privateAnswer);
+    expect(preview.body.html).toMatch(/href="http[^"]+\/unsubscribe\?token=/);
+    expect(preview.body.text).toContain('Stop them: http');
+    expect((await librarian.json(`/api/notes/${slug}/send`, 'GET')).body.sends).toEqual([]);
+    expect(await outboxFor('member@candlewise.test', 'Digest evening', 1)).toHaveLength(0);
 
     const first = await librarian.json(`/api/notes/${slug}/send`, 'POST', {});
     expect(first.status).toBe(201);

@@ -143,6 +143,12 @@ describe('editing species', () => {
     const r2 = await editor.json('/api/species', 'POST', { record: newRecord(noCitation, 'pinus-sinefonte', 'Pinus sinefonte'), body: '', summary: '', publish: true });
     expect(r2.status).toBe(422);
     expect(r2.body.error.fields['record.traits.needleLengthMm.citation']).toBeDefined();
+    // The same record saves as a draft: only publishing needs every citation.
+    const draftSave = await editor.json('/api/species', 'POST', { record: newRecord(noCitation, 'pinus-sinefonte', 'Pinus sinefonte'), body: '', summary: '', publish: false });
+    expect(draftSave.status).toBe(201);
+    const publishLater = await editor.json('/api/species/pinus-sinefonte/revert', 'POST', { toRevision: 1, baseRevision: 1, publish: true });
+    expect(publishLater.status).toBe(422);
+    expect(publishLater.body.error.fields['record.traits.needleLengthMm.citation']).toBeDefined();
     const noBase = await editor.json('/api/species/pinus-sylvestris', 'PATCH', { record: s.record, body: '', summary: '', publish: true });
     expect(noBase.status).toBe(422);
     expect(noBase.body.error.fields.baseRevision).toBeDefined();

@@ -38,14 +38,14 @@ describe('digest rendering', () => {
 
   it('HTML part: escaped title, absolute links, preview cards, private answer as text, unsubscribe link', async () => {
     const { html } = await digest();
-    expect(html).toContain('<h1 style="font-family:Georgia,serif;color:#233721">Spring candles &amp; &lt;pinching&gt;</h1>');
+    expect(html).toMatch(/<h1 style="[^"]*">Spring candles &amp; &lt;pinching&gt;<\/h1>/);
     expect(html).toContain(`href="${base}/answers/sharedAns0001"`);
     expect(html).toContain(`href="${base}/species/pinus-sylvestris"`);
     expect(html).toContain('href="https://example.org/x"');
     expect(html).toContain('asked by Wren Alder');
     expect(html).not.toContain('privateAns001');
-    expect(html).toContain('a private one <span class="link-note">(answer not available)</span>');
-    expect(html).toContain(`<a href="${base}/unsubscribe?token=abc.def">Stop these e-mails</a>`);
+    expect(html).toMatch(/a private one <span class="link-note" style="[^"]*">\(answer not available\)<\/span>/);
+    expect(html).toMatch(new RegExp(`<a href="${base}/unsubscribe\\?token=abc\\.def"[^>]*>Stop these e-mails</a>`));
     expect(html).toContain(`href="${base}/notes/2027-03-14-spring-candles"`);
     expect(html).not.toMatch(/href="\//);
   });

@@ -28,12 +28,34 @@ export function speciesLinkMarkdown(s: SpeciesItem): string {
   return `[${linkText(s.commonNames[0] ?? s.botanicalName)}](/species/${s.slug})`;
 }
 
+/**
+ * Put an inserted link on a line of its own: a line break before it unless the cursor is at the
+ * start of a line, and one after it unless a line break follows. Links inserted one after another
+ * then never run together (`…](…)[…`) in the note or in the plain-text e-mail.
+ */
+export function onOwnLine(before: string, markdown: string, after: string): { text: string; caret: number } {
+  const lead = before === '' || before.endsWith('\n') ? '' : '\n';
+  const trail = after.startsWith('\n') ? '' : '\n';
+  const inserted = `${lead}${markdown}${trail}`;
+  return { text: before + inserted + after, caret: before.length + inserted.length };
+}
+
+const timeOf = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+
+/** What a member reads to pick the right answer: action, species, date, member, tree. */
+function describeAnswer(a: LinkableAnswerDto) {
+  return `${actionWord(a.action)}, ${a.speciesName}, ${formatMeetingDate(a.observedOn)}, asked by ${a.askerName}${a.treeName ? `, tree “${a.treeName}”` : ', no tree named'}`;
+}
+
 function AnswerSearch({ onInsert }: { onInsert: (md: string) => void }) {
   const [f, setF] = useState({ species: '', action: '', member: '', from: '', to: '' });
   const params = new URLSearchParams(Object.entries(f).filter(([, v]) => v.trim() !== ''));
   const { data, error, isLoading } = useSWR<{ items: LinkableAnswerDto[] }>(`/api/notes/linkable-answers?${params}`, fetcher, { keepPreviousData: true });
   const set = (k: keyof typeof f) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setF((x) => ({ ...x, [k]: e.target.value }));
   const items = data?.items ?? [];
+  // Answers that read the same (same action, species, day, member and tree) also show when they were saved.
+  const lookalike = new Map<string, number>();
+  for (const a of items) lookalike.set(describeAnswer(a), (lookalike.get(describeAnswer(a)) ?? 0) + 1);
   return (
     <div className="space-y-3">
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5">
@@ -53,11 +75,20 @@ function AnswerSearch({ onInsert }: { onInsert: (md: string) => void }) {
       <ul className="max-h-72 space-y-2 overflow-auto" aria-busy={isLoading} data-testid="picker-answers">
         {items.length === 0 && !isLoading ? <li className="text-stone-700">No shared answer matches.</li> : null}
         {items.map((a) => (
-          <li key={a.id} className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-stone-200 bg-white px-3 py-1">
-            <span>
-              <strong>{actionWord(a.action)}</strong> · {a.speciesName} · {formatMeetingDate(a.observedOn)} · {a.askerName}
+          <li key={a.id} className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-stone-200 bg-white px-3 py-1" data-testid="picker-answer">
+            <span className="min-w-0 break-words">
+              <strong>{actionWord(a.action)}</strong> · {a.speciesName} · {formatMeetingDate(a.observedOn)}
+              <span className="block text-sm text-stone-700">
+                {a.askerName} · {a.treeName ? <>tree “{a.treeName}”</> : 'no tree named'}
+                {(lookalike.get(describeAnswer(a)) ?? 0) > 1 ? <> · saved {timeOf(a.savedAt)}</> : null}
+              </span>
             </span>
-            <button type="button" className="btn-secondary" onClick={() => onInsert(answerLinkMarkdown(a))} aria-label={`Insert link to ${actionWord(a.action)}, ${a.speciesName}, ${a.observedOn}, asked by ${a.askerName}`}>
+            <button
+              type="button"
+              className="btn-secondary"
+              onClick={() => onInsert(answerLinkMarkdown(a))}
+              aria-label={`Insert link to ${describeAnswer(a)}${(lookalike.get(describeAnswer(a)) ?? 0) > 1 ? `, saved ${timeOf(a.savedAt)}` : ''}`}
+            >
               Insert
             </button>
           </li>

@@ -7,7 +7,7 @@ import { mutate } from 'swr';
 import { ApiError, sendJson } from '@/components/fetcher';
 import type { NoteDto } from '@/lib/data/notes';
 import { noteInputSchema, type NoteInput, type NoteStatus } from '@/lib/validation/notes';
-import { LinkPicker } from './link-picker';
+import { LinkPicker, onOwnLine } from './link-picker';
 
 const PREVIEW_DELAY_MS = 350;
 
@@ -61,12 +61,12 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
     const current = el?.value ?? body;
     const start = el?.selectionStart ?? current.length;
     const end = el?.selectionEnd ?? current.length;
-    const next = current.slice(0, start) + markdown + current.slice(end);
-    setValue('body', next, { shouldDirty: true });
+    const { text, caret } = onOwnLine(current.slice(0, start), markdown, current.slice(end));
+    setValue('body', text, { shouldDirty: true });
     requestAnimationFrame(() => {
       if (!el) return;
       el.focus();
-      el.setSelectionRange(start + markdown.length, start + markdown.length);
+      el.setSelectionRange(caret, caret);
     });
   }
 
@@ -79,7 +79,7 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
           ? await sendJson<{ note: NoteDto }>(`/api/notes/${note.slug}`, 'PATCH', { ...payload, expectedUpdatedAt: note.updatedAt })
           : await sendJson<{ note: NoteDto }>('/api/notes', 'POST', payload);
         await mutate((k) => typeof k === 'string' && k.startsWith('/api/notes'));
-        router.push(`/notes/${res.note.slug}`);
+        router.push(`/notes/${res.note.slug}?saved=${res.note.status}`);
         router.refresh();
       } catch (e) {
         if (e instanceof ApiError && e.body.fields) {

@@ -12,6 +12,8 @@ import { wizardSummary } from '@/lib/species/wizard-summary';
 import { slugSchema } from '@/lib/validation/species';
 import { SourceMarker } from './_components/source-marker';
 import { Backlinks } from '@/components/backlinks';
+import { FocusNotice } from '@/components/focus-notice';
+import { PublishDraft } from './_components/publish-draft';
 
 type Props = { params: Promise<{ slug: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -59,6 +61,15 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
   });
   const cautionNumbers = rec.cautions.map((c) => (c.provenance === 'published' ? numberOf(c.citation) : undefined));
   const isPublishedView = s.revision === s.publishedRevision;
+  // After a save or a publish the editor lands here; the notice takes the focus and says what happened.
+  const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
+  const notice = !editor
+    ? null
+    : one(sp.published) && isPublishedView
+      ? `Published: revision ${s.revision} is now what members and the wizard use.`
+      : one(sp.saved) && s.status === 'draft'
+        ? `Saved as draft revision ${s.revision}. Members still see the published revision.`
+        : null;
 
   return (
     <article className="space-y-8">
@@ -75,6 +86,8 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
             {s.publishedRevision ? <Link href={`/species/${s.slug}`}>See the published revision</Link> : 'This species has never been published.'}
           </p>
         )}
+        {editor && s.status === 'draft' && s.revision === s.latestRevision && <PublishDraft slug={s.slug} revision={s.revision} />}
+        {notice && <FocusNotice>{notice}</FocusNotice>}
         {editor && isPublishedView && s.latestRevision > (s.publishedRevision ?? 0) && (
           <p className="rounded-lg border border-sun-500 bg-sun-100 p-3 text-sun-700" role="note">
             A draft (revision {s.latestRevision}) is waiting. <Link href={`/species/${s.slug}?revision=${s.latestRevision}`}>Review the draft</Link>

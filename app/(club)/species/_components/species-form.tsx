@@ -1,5 +1,5 @@
 'use client';
-import { useDeferredValue, useMemo, useState } from 'react';
+import { useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { Controller, useFieldArray, useForm, useWatch, type Path } from 'react-hook-form';
@@ -8,7 +8,7 @@ import type { z } from 'zod';
 import { ApiError, sendJson } from '@/components/fetcher';
 import { renderMarkdownSync } from '@/lib/markdown/render';
 import { groupLabels, provenanceLabels, traitOrder } from '@/lib/species/labels';
-import { provenanceKinds, speciesCreateSchema, speciesGroups, type SpeciesRecord } from '@/lib/validation/species';
+import { missingCitations, provenanceKinds, speciesCreateSchema, speciesGroups, type SpeciesRecord } from '@/lib/validation/species';
 import { errorAt } from './form-errors';
 import { TraitFields, type FormIn } from './trait-fields';
 
@@ -68,10 +68,24 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
   // The same sanitizing pipeline the server uses, run in the browser for the live preview.
   const preview = useMemo(() => renderMarkdownSync(deferred), [deferred]);
   const err = (p: string) => errorAt(errors, p);
+  const messageRef = useRef<HTMLDivElement>(null);
+  // A message after Save or Publish takes the focus (field errors are announced beside each field).
+  useEffect(() => {
+    if (message) messageRef.current?.focus();
+  }, [message]);
 
   const submit = (publish: boolean) =>
     handleSubmit(async (values) => {
       setMessage(null);
+      if (publish) {
+        // A draft may wait for a citation; publishing may not. Said beside each field, before sending.
+        const uncited = missingCitations(values.record);
+        if (Object.keys(uncited).length) {
+          for (const [k, v] of Object.entries(uncited)) setError(`record.${k}` as Path<FormIn>, { message: v.join(' ') });
+          setMessage({ tone: 'error', text: `${Object.keys(uncited).length} published value(s) need a citation before publishing. Add them, or save as a draft.` });
+          return;
+        }
+      }
       const payload = { ...values, record: tidy(values.record), publish };
       try {
         const res =
@@ -79,7 +93,7 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
             ? await sendJson<{ species: { slug: string; revision: number } }>('/api/species', 'POST', payload)
             : await sendJson<{ species: { slug: string; revision: number } }>(`/api/species/${initial.slug}`, 'PATCH', { ...payload, baseRevision });
         const { slug, revision } = res.species;
-        router.push(publish ? `/species/${slug}` : `/species/${slug}?revision=${revision}`);
+        router.push(publish ? `/species/${slug}?published=${revision}` : `/species/${slug}?revision=${revision}&saved=1`);
         router.refresh();
       } catch (e) {
         if (e instanceof ApiError) {
@@ -178,7 +192,7 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
           {err('summary') && <p className="field-error" role="alert">{err('summary')}</p>}
         </div>
         {message && (
-          <div role="alert" className={`rounded-lg border p-3 ${message.tone === 'error' ? 'border-clay-500 bg-clay-100 text-clay-700' : 'border-moss-500 bg-moss-50'}`} data-testid="form-message">
+          <div ref={messageRef} tabIndex={-1} role="alert" className={`rounded-lg border p-3 ${message.tone === 'error' ? 'border-clay-500 bg-clay-100 text-clay-700' : 'border-moss-500 bg-moss-50'}`} data-testid="form-message">
             <p>{message.text}</p>
             {message.conflict && (
               <p className="mt-1">
@@ -188,17 +202,22 @@ export function SpeciesForm({ mode, initial, body, baseRevision }: { mode: 'crea
           </div>
         )}
         {err('baseRevision') && <p className="field-error">{err('baseRevision')}</p>}
-        <div className="flex flex-wrap gap-3">
-          <button type="button" className="btn-secondary" disabled={isSubmitting} onClick={() => { setValue('publish', false); void submit(false)(); }}>
+        <p className="text-sm text-stone-700">A draft is visible to editors only and may leave a citation for later. Publishing makes it the revision members and the wizard use, and needs every citation.</p>
+      </section>
+
+      {/* The form is long: its actions stay on screen at the bottom while the editor scrolls. */}
+      <div className="sticky bottom-0 z-10 rounded-t-card border border-b-0 border-stone-300 bg-white px-3 py-3 sm:px-4 shadow-[0_-2px_6px_rgba(0,0,0,0.08)]" data-testid="form-actions">
+        <div className="flex flex-wrap items-center gap-2 sm:gap-3">
+          <button type="button" className="btn-secondary max-sm:px-3" disabled={isSubmitting} onClick={() => { setValue('publish', false); void submit(false)(); }}>
             Save as draft
           </button>
-          <button type="button" className="btn-primary" disabled={isSubmitting} onClick={() => { setValue('publish', true); void submit(true)(); }} data-testid="publish">
+          <button type="button" className="btn-primary max-sm:px-3" disabled={isSubmitting} onClick={() => { setValue('publish', true); void submit(true)(); }} data-testid="publish">
             Publish
           </button>
-          <Link href={mode === 'edit' ? `/species/${initial.slug}` : '/species'} className="btn-secondary">Cancel</Link>
+          <Link href={mode === 'edit' ? `/species/${initial.slug}` : '/species'} className="btn-secondary max-sm:px-3">Cancel</Link>
+          {isSubmitting && <span role="status" className="text-sm text-stone-700">Saving…</span>}
         </div>
-        <p className="text-sm text-stone-700">A draft is visible to editors only. Publishing makes it the revision members and the wizard use.</p>
-      </section>
+      </div>
     </form>
   );
 }

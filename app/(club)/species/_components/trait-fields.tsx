@@ -105,7 +105,7 @@ export function TraitFields({ name, control, register, errors }: { name: Key; co
           <Err id={`${id}-prov-err`} msg={e('provenance')} />
         </div>
         <div>
-          <label htmlFor={`${id}-cit`} className="field-label">Citation (needed when published)</label>
+          <label htmlFor={`${id}-cit`} className="field-label">Citation (needed to publish; a draft can wait)</label>
           <input id={`${id}-cit`} className="field-input" aria-invalid={!!e('citation')} {...register(`${base}.citation` as 'record.traits.vigour.citation')} />
           <Err id={`${id}-cit-err`} msg={e('citation')} />
         </div>

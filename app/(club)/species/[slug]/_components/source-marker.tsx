@@ -10,7 +10,8 @@ const tone: Record<ProvenanceKind, string> = {
 /**
  * A small source marker beside a value. The citation shows on hover and on keyboard focus (the
  * marker is a focusable button described by the tooltip), so it works without a mouse. The tip is
- * display:none until then, so it never widens the page on a phone.
+ * display:none until then; on a phone it shows pinned across the bottom of the screen, so a
+ * marker near the right edge never pushes it past the screen.
  */
 export function SourceMarker({ id, provenance, citation, note, sourceNumber, align = 'start' }: { id: string; provenance: ProvenanceKind; citation?: string; note?: string; sourceNumber?: number; align?: 'start' | 'end' }) {
   const label = provenanceLabels[provenance];
@@ -30,7 +31,7 @@ export function SourceMarker({ id, provenance, citation, note, sourceNumber, ali
       <span
         role="tooltip"
         id={tipId}
-        className={`absolute bottom-full z-20 mb-2 hidden w-64 max-w-[75vw] rounded-lg bg-stone-900 p-2 text-xs leading-snug text-white shadow-lg group-focus-within:block group-hover:block ${align === 'end' ? 'right-0' : 'left-0'}`}
+        className={`absolute bottom-full z-20 mb-2 hidden w-64 max-w-[75vw] rounded-lg max-sm:fixed max-sm:inset-x-4 max-sm:top-auto max-sm:bottom-4 max-sm:mb-0 max-sm:w-auto max-sm:max-w-none max-sm:text-sm bg-stone-900 p-2 text-xs leading-snug text-white shadow-lg group-focus-within:block group-hover:block ${align === 'end' ? 'right-0' : 'left-0'}`}
       >
         <strong className="block">{label.long}</strong>
         {citation && <span className="block">{citation}</span>}

@@ -73,8 +73,8 @@ export function ImportPanel() {
           <h2 id="preview-h" className="text-xl">Preview</h2>
           <ul className="space-y-3" data-testid="import-preview">
             {preview.map((p) => (
-              <li key={p.name} className={`card ${p.ok ? '' : 'border-clay-500'}`}>
-                <p className="font-medium">
+              <li key={p.name} className={`card min-w-0 break-words ${p.ok ? '' : 'border-clay-500'}`}>
+                <p className="font-medium [overflow-wrap:anywhere]">
                   {p.name} {p.botanicalName && <span className="italic text-stone-700">({p.botanicalName})</span>}
                 </p>
                 {p.ok ? (
@@ -84,7 +84,7 @@ export function ImportPanel() {
                     <p className="text-clay-700">{p.message}</p>
                     <ul className="mt-2 list-disc pl-5 text-sm">
                       {Object.entries(p.fields ?? {}).map(([field, msgs]) => (
-                        <li key={field}><code className="rounded bg-stone-100 px-1">{field}</code>: {msgs.join(' ')}</li>
+                        <li key={field} className="[overflow-wrap:anywhere]"><code className="rounded bg-stone-100 px-1 break-all">{field}</code>: {msgs.join(' ')}</li>
                       ))}
                     </ul>
                   </>
