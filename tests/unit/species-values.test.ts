@@ -47,7 +47,15 @@ describe('shipped species values against their sources', () => {
   it('Japanese black and Japanese red pine are double-flush; the other pines single', () => {
     expect(get('pinus-thunbergii').flushHabit.value).toBe('double'); // common practice, no published source
     expect(get('pinus-densiflora').flushHabit.value).toBe('double'); // common practice, no published source
-    for (const slug of ['pinus-mugo', 'pinus-parviflora', 'pinus-contorta']) expect(get(slug).flushHabit.value).toBe('single'); // common practice, no published source
+    for (const slug of ['pinus-mugo', 'pinus-parviflora']) expect(get(slug).flushHabit.value).toBe('single'); // common practice, no published source
+  });
+
+  it('lodgepole, jack and Aleppo pine are polycyclic, with their botanical shoot habit kept beside it', () => {
+    for (const slug of ['pinus-contorta', 'pinus-banksiana', 'pinus-halepensis']) {
+      expect(get(slug).flushHabit.value, slug).toBe('polycyclic');
+      expect(get(slug).shootHabit.value, slug).toBe('multinodal'); // source: Shaw 1914 (contorta); Ann. For. Sci. 2017 (halepensis); from memory (banksiana)
+      expect(toWizardSpecies(records.get(slug)!, 1), slug).toMatchObject({ flushHabit: 'polycyclic', shootHabit: 'multinodal' });
+    }
   });
 
   it('mugo pine needles lengthen strongly with spring feeding; Scots pine only slightly', () => {
