@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import path from 'node:path';
 import { readSpeciesDir } from '@/lib/species/content-dir';
 import type { SpeciesRecord } from '@/lib/validation/species';
-import { toWizardSpecies } from '@/lib/validation/species';
+import { speciesGroups, toWizardSpecies } from '@/lib/validation/species';
 
 const records = new Map<string, SpeciesRecord>(
   readSpeciesDir(path.resolve(__dirname, '../../content/species')).flatMap((f) => (f.result.ok ? [[f.result.record.slug, f.result.record] as const] : [])),
@@ -80,10 +80,10 @@ describe('shipped species values against their sources', () => {
     }
   });
 
-  it('ships at least 24 species including non-pine controls', () => {
-    expect(records.size).toBeGreaterThanOrEqual(24);
+  it('ships at least 60 species, with every group the wizard models', () => {
+    expect(records.size).toBeGreaterThanOrEqual(60);
     const groups = new Set([...records.values()].map((r) => r.group));
-    for (const g of ['pine', 'larch', 'spruce', 'juniper']) expect(groups).toContain(g);
+    for (const g of speciesGroups) expect(groups, g).toContain(g);
     for (const slug of ['larix-decidua', 'picea-abies', 'juniperus-chinensis']) expect(records.has(slug)).toBe(true);
   });
 });
