@@ -12,6 +12,8 @@ export function wizardSummary(rec: SpeciesRecord): string[] {
     out.push('This is not a pine: there are no candles, so the wizard never suggests decandling and works with pinching, shortening and thinning shoots.');
   } else if (t.flushHabit.value === 'double') {
     out.push('Double flush: on a strong, established tree the wizard may suggest cutting the spring candles in early summer so a second, shorter flush follows. On a weak or newly repotted tree it says to let it grow instead.');
+  } else if (t.flushHabit.value === 'polycyclic') {
+    out.push('Several growth units a season (polycyclic): new shoots keep coming after the spring candle, so the wizard suggests shortening each as it extends and never removing a candle whole.');
   } else {
     out.push('Single flush: the spring candle is the whole season’s growth, so the wizard suggests pinching or shortening candles and never removing one whole.');
   }

@@ -45,7 +45,7 @@ describe('species list', () => {
 
   it('filters by group, flush habit, vigour and needle length', async () => {
     const larches = await listSpecies(null, q({ group: 'larch' }));
-    expect(larches.items.map((i) => i.slug).sort()).toEqual(['larix-decidua', 'larix-kaempferi']);
+    expect(larches.items.map((i) => i.slug).sort()).toEqual(['larix-decidua', 'larix-kaempferi', 'larix-laricina']);
     const doubles = await listSpecies(null, q({ flush: 'double' }));
     expect(doubles.items.map((i) => i.slug).sort()).toEqual(['pinus-densiflora', 'pinus-thunbergii']);
     const long = await listSpecies(null, q({ needleMin: 150 }));
@@ -108,7 +108,7 @@ describe('editorial workflow', () => {
     await expect(createSpecies(member, { record, body: '', summary: '', publish: false })).rejects.toMatchObject({ status: 403 });
     await createSpecies(editor, { record, body: 'notes', summary: 'new', publish: false });
     await expect(getSpeciesForViewer(member, 'pinus-inventa')).rejects.toMatchObject({ status: 404 });
-    expect((await listSpecies(member, q({ q: 'inventa' }))).items).toHaveLength(0);
+    expect((await listSpecies(member, q({ q: 'inventa' }))).items.map((i) => i.slug)).not.toContain('pinus-inventa');
     expect((await listSpecies(editor, q({ q: 'inventa' }))).items[0]).toMatchObject({ slug: 'pinus-inventa', publishedRevision: null, hasDraft: true });
     await expect(createSpecies(editor, { record, body: '', summary: '', publish: false })).rejects.toMatchObject({ status: 409 });
     await expect(updateSpecies(editor, 'pinus-inventa', { record: { ...record, slug: 'pinus-other' }, body: '', summary: '', publish: false, baseRevision: 1 })).rejects.toMatchObject({ status: 422 });

@@ -40,6 +40,8 @@ describe('what the wizard does for a species', () => {
     expect(wizardSummary(read('pinus-sylvestris').record).join(' ')).toMatch(/never removing one whole/);
     expect(wizardSummary(read('pinus-mugo').record).join(' ')).toMatch(/holds back spring feeding/);
     expect(wizardSummary(read('pinus-contorta').record).join(' ')).toMatch(/Multinodal/);
+    expect(wizardSummary(read('pinus-contorta').record).join(' ')).toMatch(/polycyclic/);
+    expect(wizardSummary(read('pinus-contorta').record).join(' ')).not.toMatch(/Single flush/);
     expect(wizardSummary(read('larix-decidua').record).join(' ')).toMatch(/not a pine/);
   });
 

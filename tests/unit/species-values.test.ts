@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import path from 'node:path';
 import { readSpeciesDir } from '@/lib/species/content-dir';
 import type { SpeciesRecord } from '@/lib/validation/species';
-import { toWizardSpecies } from '@/lib/validation/species';
+import { speciesGroups, toWizardSpecies } from '@/lib/validation/species';
 
 const records = new Map<string, SpeciesRecord>(
   readSpeciesDir(path.resolve(__dirname, '../../content/species')).flatMap((f) => (f.result.ok ? [[f.result.record.slug, f.result.record] as const] : [])),
@@ -47,7 +47,15 @@ describe('shipped species values against their sources', () => {
   it('Japanese black and Japanese red pine are double-flush; the other pines single', () => {
     expect(get('pinus-thunbergii').flushHabit.value).toBe('double'); // common practice, no published source
     expect(get('pinus-densiflora').flushHabit.value).toBe('double'); // common practice, no published source
-    for (const slug of ['pinus-mugo', 'pinus-parviflora', 'pinus-contorta']) expect(get(slug).flushHabit.value).toBe('single'); // common practice, no published source
+    for (const slug of ['pinus-mugo', 'pinus-parviflora']) expect(get(slug).flushHabit.value).toBe('single'); // common practice, no published source
+  });
+
+  it('lodgepole, jack and Aleppo pine are polycyclic, with their botanical shoot habit kept beside it', () => {
+    for (const slug of ['pinus-contorta', 'pinus-banksiana', 'pinus-halepensis']) {
+      expect(get(slug).flushHabit.value, slug).toBe('polycyclic');
+      expect(get(slug).shootHabit.value, slug).toBe('multinodal'); // source: Shaw 1914 (contorta); Ann. For. Sci. 2017 (halepensis); from memory (banksiana)
+      expect(toWizardSpecies(records.get(slug)!, 1), slug).toMatchObject({ flushHabit: 'polycyclic', shootHabit: 'multinodal' });
+    }
   });
 
   it('mugo pine needles lengthen strongly with spring feeding; Scots pine only slightly', () => {
@@ -72,10 +80,10 @@ describe('shipped species values against their sources', () => {
     }
   });
 
-  it('ships at least 24 species including non-pine controls', () => {
-    expect(records.size).toBeGreaterThanOrEqual(24);
+  it('ships at least 60 species, with every group the wizard models', () => {
+    expect(records.size).toBeGreaterThanOrEqual(60);
     const groups = new Set([...records.values()].map((r) => r.group));
-    for (const g of ['pine', 'larch', 'spruce', 'juniper']) expect(groups).toContain(g);
+    for (const g of speciesGroups) expect(groups, g).toContain(g);
     for (const slug of ['larix-decidua', 'picea-abies', 'juniperus-chinensis']) expect(records.has(slug)).toBe(true);
   });
 });
