@@ -8,8 +8,13 @@ export const DEFAULT_MAX_BODY_BYTES = 1_000_000;
  * a byte is read, and the bytes are counted while streaming, so a body without (or lying about)
  * its length is cut off at the cap. Either way the rest is never read: 413.
  */
-export async function readBodyCapped(req: Request, maxBytes = DEFAULT_MAX_BODY_BYTES, subject = 'body'): Promise<Uint8Array> {
-  const tooLarge = () => new AppError(`payload_too_large:${subject}`, `The request body is larger than ${maxBytes} bytes.`);
+export async function readBodyCapped(
+  req: Request,
+  maxBytes = DEFAULT_MAX_BODY_BYTES,
+  say: { subject?: string; field?: string; message?: string } = {},
+): Promise<Uint8Array> {
+  const message = say.message ?? `The request body is larger than ${maxBytes} bytes.`;
+  const tooLarge = () => new AppError(`payload_too_large:${say.subject ?? 'body'}`, message, say.field ? { [say.field]: [message] } : undefined);
   const declared = req.headers.get('content-length');
   if (declared !== null && /^\d+$/.test(declared.trim()) && Number(declared) > maxBytes) {
     await req.body?.cancel().catch(() => {});

@@ -19,7 +19,7 @@ const listQuery = z.object({
 });
 
 export const GET = route(async (req) => {
-  const query = parseQuery(req, listQuery);
   const actor = await requireUser();
+  const query = parseQuery(req, listQuery);
   return NextResponse.json({ items: await listUsers(actor, query) });
 });
