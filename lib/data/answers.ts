@@ -5,6 +5,7 @@ import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, trees, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
+import { isBoundedDate } from '@/lib/validation/bounds';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SaveAnswerBody } from '@/lib/validation/wizard';
 import type { Action, WizardInput, WizardResult } from '@/lib/wizard/types';
@@ -101,7 +102,7 @@ function decodeCursor(cursor: string): { createdAt: Date; id: string } {
   const raw = Buffer.from(cursor, 'base64url').toString('utf8');
   const [iso, id] = raw.split('|');
   const createdAt = new Date(iso);
-  if (!id || Number.isNaN(createdAt.getTime()) || !answerIdPattern.test(id)) {
+  if (!id || !isBoundedDate(createdAt) || !answerIdPattern.test(id)) {
     throw new AppError('bad_request:cursor', 'The page cursor is not valid.', { cursor: ['Invalid cursor'] });
   }
   return { createdAt, id };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { INT4_MAX, positiveInt4 } from './bounds';
 
 // The species record: the front matter of content/species/*.md, the `data` of a species
 // revision, and the body of POST/PATCH /api/species. One schema for all three.
@@ -143,14 +144,14 @@ export type SpeciesCreateInput = z.infer<typeof speciesCreateSchema>;
 
 /** PATCH /api/species/[slug]: a new revision on top of `baseRevision` (optimistic concurrency). */
 export const speciesPatchSchema = speciesCreateSchema.extend({
-  baseRevision: z.number({ error: 'Send the revision you started from as baseRevision.' }).int().min(1),
+  baseRevision: z.number({ error: 'Send the revision you started from as baseRevision.' }).int().min(1).max(INT4_MAX),
 });
 export type SpeciesPatchInput = z.infer<typeof speciesPatchSchema>;
 
 /** POST /api/species/[slug]/revert: copy an old revision into a new one. */
 export const speciesRevertSchema = z.object({
-  toRevision: z.number().int().min(1),
-  baseRevision: z.number().int().min(1),
+  toRevision: positiveInt4(),
+  baseRevision: positiveInt4(),
   summary: editSummary,
   publish: z.boolean().default(true),
 });

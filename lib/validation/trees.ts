@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedIsoDate } from './bounds';
 
 // A member's tree: one schema for the create/edit form and for POST/PATCH /api/trees.
 // Dates are ISO calendar dates (YYYY-MM-DD); dimensions are centimetres of the soil surface.
@@ -17,7 +18,7 @@ export function todayIso(now = new Date()): string {
   return now.toISOString().slice(0, 10);
 }
 
-const isoDate = z.iso.date({ error: 'Use a date like 2026-04-12.' });
+const isoDate = boundedIsoDate('Use a date like 2026-04-12.');
 const optionalDate = isoDate.nullable();
 const dimension = z
   .number({ error: 'Give the size in centimetres.' })
