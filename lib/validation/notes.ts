@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { boundedIsoDate, boundedIsoDateTime } from './bounds';
+import { markdownProblem } from '@/lib/markdown/limits';
 
 // Meeting notes: one schema for the editor form and for POST/PATCH /api/notes.
 
@@ -11,7 +12,13 @@ export const MAX_NOTE_BODY = 100_000;
 export const noteFieldsSchema = z.object({
   title: z.string().trim().min(1, { error: 'Give the note a title.' }).max(160, { error: 'Keep the title under 160 characters.' }),
   meetingDate: boundedIsoDate('Give the meeting date, like 2027-03-14.'),
-  body: z.string().max(MAX_NOTE_BODY, { error: `Keep the note under ${MAX_NOTE_BODY.toLocaleString('en')} characters.` }),
+  body: z
+    .string()
+    .max(MAX_NOTE_BODY, { error: `Keep the note under ${MAX_NOTE_BODY.toLocaleString('en')} characters.` })
+    .superRefine((s, ctx) => {
+      const problem = markdownProblem(s);
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    }),
   status: z.enum(noteStatuses, { error: 'Choose draft or published.' }),
 });
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { INT4_MAX, positiveInt4 } from './bounds';
+import { markdownProblem } from '@/lib/markdown/limits';
 
 // The species record: the front matter of content/species/*.md, the `data` of a species
 // revision, and the body of POST/PATCH /api/species. One schema for all three.
@@ -130,7 +131,14 @@ export function toWizardSpecies(rec: SpeciesRecord, revision: number): WizardSpe
 
 export const MAX_CARE_NOTES = 40_000;
 
-const careNotes = z.string().max(MAX_CARE_NOTES, { error: `Keep the care notes under ${MAX_CARE_NOTES} characters.` }).default('');
+const careNotes = z
+  .string()
+  .max(MAX_CARE_NOTES, { error: `Keep the care notes under ${MAX_CARE_NOTES} characters.` })
+  .superRefine((s, ctx) => {
+    const problem = markdownProblem(s);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem });
+  })
+  .default('');
 const editSummary = z.string().trim().max(300, { error: 'Keep the edit summary under 300 characters.' }).default('');
 
 /** POST /api/species: a new species as a draft or published at once. */
