@@ -31,6 +31,15 @@ function lazyAdapter(): Adapter {
   ) as unknown as Adapter;
 }
 
+/** Send a sign-in link after the response, if the address belongs to an enabled account. */
+function queueSignInLink(identifier: string, url: string) {
+  setImmediate(() => {
+    hasActiveAccount(identifier)
+      .then((active) => (active ? sendSignInLink(identifier, url) : undefined))
+      .catch((e: unknown) => console.error('[candlewise] sign-in link not sent', e));
+  });
+}
+
 export const SESSION_MAX_AGE = 30 * 24 * 60 * 60;
 export const EMAIL_LINK_MAX_AGE = 15 * 60;
 
@@ -65,9 +74,10 @@ export const authOptions: AuthOptions = {
       server: env.smtpUrl,
       from: env.MAIL_FROM,
       async sendVerificationRequest({ identifier, url }) {
-        // Links go only to existing, enabled accounts (sign-up is the password form); the page
-        // says the same thing either way, so this reveals nothing about who is a member.
-        if (await hasActiveAccount(identifier)) await sendSignInLink(identifier, url);
+        // Links go only to existing, enabled accounts (sign-up is the password form). The look-up
+        // and the send are queued, not awaited: the answer comes back in the same time and with
+        // the same words for a member and a stranger, so neither says who is a member.
+        queueSignInLink(identifier, url);
       },
     }),
   ],

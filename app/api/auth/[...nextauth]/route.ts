@@ -1,7 +1,7 @@
 import NextAuth from 'next-auth';
 import { NextRequest, NextResponse } from 'next/server';
 import { authOptions } from '@/lib/auth/options';
-import { clientIp, emailKey, isSignInBlocked } from '@/lib/auth/rate-limit';
+import { clientIp, emailKey, isSignInBlocked, takeToken } from '@/lib/auth/rate-limit';
 import { env } from '@/lib/env';
 import { errorResponse } from '@/lib/http/route';
 import { readBodyCapped } from '@/lib/http/body';
@@ -12,6 +12,12 @@ type Ctx = { params: Promise<{ nextauth: string[] }> };
 
 /** next-auth's own bodies are a CSRF token, an e-mail address, a password and a URL or two. */
 export const MAX_AUTH_BODY_BYTES = 16 * 1024;
+
+// Sign-in link requests, per address and per client (on top of next-auth's own checks): enough
+// for a lost mail or two, not for flooding someone's inbox.
+export const MAX_LINKS_PER_EMAIL = 3;
+export const MAX_LINKS_PER_IP = 30;
+const LINK_WINDOW_MS = 15 * 60_000;
 
 /** The body as next-auth itself reads it (utils.getBody): JSON or a URL-encoded form, else nothing. */
 function parseLikeNextAuth(type: string, bytes: Uint8Array): Record<string, unknown> | undefined {
@@ -56,6 +62,13 @@ export async function POST(req: NextRequest, ctx: Ctx) {
     if (isSignInBlocked(emailKey(body?.email), ip)) {
       return limited('Too many failed sign-ins. Wait a minute and try again.', 'RateLimited');
     }
+  }
+  if (action === 'signin' && provider === 'email') {
+    // Counted for known and unknown addresses alike, so a refusal says nothing about membership.
+    const key = emailKey(body?.email);
+    const perIp = takeToken(`link-ip:${ip}`, MAX_LINKS_PER_IP, LINK_WINDOW_MS);
+    const perEmail = key ? takeToken(`link-e:${key}`, MAX_LINKS_PER_EMAIL, LINK_WINDOW_MS) : true;
+    if (!perIp || !perEmail) return limited('Too many sign-in links asked for. Wait a few minutes and try again.', 'RateLimited');
   }
   // Hand next-auth the very bytes we counted and read.
   const replay = new NextRequest(req.url, {
