@@ -6,6 +6,7 @@ import { getDb } from '@/db/client';
 import { answers, trees, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { isBoundedDate } from '@/lib/validation/bounds';
+import { assertAnswerQuota } from '@/lib/data/quotas';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SaveAnswerBody } from '@/lib/validation/wizard';
 import type { Action, WizardInput, WizardResult } from '@/lib/wizard/types';
@@ -79,6 +80,7 @@ export async function saveAnswer(user: SessionUser, body: SaveAnswerBody): Promi
     const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, treeId), eq(trees.ownerId, user.id))).limit(1);
     if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
   }
+  await assertAnswerQuota(user.id);
   const { result } = await runWizard(input);
   const id = newAnswerId();
   // createdAt set here at millisecond precision, so the keyset cursor round-trips exactly.
