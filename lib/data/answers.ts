@@ -1,11 +1,11 @@
 import 'server-only';
 import { photoFilesOfAnswer, removeStoredFiles } from '@/lib/data/photos';
-import { randomBytes } from 'node:crypto';
 import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, trees, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { isBoundedDate } from '@/lib/validation/bounds';
+import { answerIdPattern, newAnswerId } from '@/lib/ids';
 import { assertAnswerQuota } from '@/lib/data/quotas';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SaveAnswerBody } from '@/lib/validation/wizard';
@@ -19,12 +19,8 @@ import { answerRowFromResult } from './answer-row';
 
 type Viewer = Pick<SessionUser, 'id'> | null;
 
-/** 12 characters of base64url from 9 random bytes (72 bits): short and unguessable. */
-export function newAnswerId(): string {
-  return randomBytes(9).toString('base64url');
-}
-
-export const answerIdPattern = /^[A-Za-z0-9_-]{10,32}$/;
+// The generator and the pattern live in lib/ids.ts with every other id's; re-exported here.
+export { answerIdPattern, newAnswerId } from '@/lib/ids';
 
 export interface AnswerDto {
   id: string;

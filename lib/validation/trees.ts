@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { boundedIsoDate } from './bounds';
+import { idSchema } from '@/lib/ids';
 
 // A member's tree: one schema for the create/edit form and for POST/PATCH /api/trees.
 // Dates are ISO calendar dates (YYYY-MM-DD); dimensions are centimetres of the soil surface.
@@ -83,7 +84,7 @@ export const treePatchSchema = treeFieldsSchema
   .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one field.' });
 export type TreePatch = z.infer<typeof treePatchSchema>;
 
-export const treeIdSchema = z.string().regex(/^[A-Za-z0-9_-]{8,40}$/);
+export const treeIdSchema = idSchema('tree');
 
 export const emptyTree: TreeInput = {
   name: '',
