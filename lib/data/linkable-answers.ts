@@ -7,6 +7,7 @@ import { AppError } from '@/lib/errors';
 import { canWriteNotes } from '@/lib/data/notes';
 import type { SessionUser } from '@/lib/auth/session';
 import type { LinkableAnswersQuery } from '@/lib/validation/notes';
+import { assertRole } from '@/lib/auth/roles';
 
 // The note editor's picker: answers shared with the club, searched by species, action, member
 // and date. Private answers never appear here, whoever searches.
@@ -22,7 +23,7 @@ export interface LinkableAnswerDto {
 }
 
 export async function searchLinkableAnswers(actor: Pick<SessionUser, 'role'>, q: LinkableAnswersQuery): Promise<LinkableAnswerDto[]> {
-  if (!canWriteNotes(actor)) throw new AppError('forbidden:notes', 'Only librarians and administrators write meeting notes.');
+  assertRole(actor, 'librarian', 'notes', 'Only librarians and administrators write meeting notes.');
   const conds: (SQL | undefined)[] = [eq(answers.visibility, 'club')];
   if (q.species) {
     const like = `%${escapeLike(q.species)}%`;

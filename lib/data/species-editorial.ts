@@ -15,6 +15,7 @@ import {
   type SpeciesRecord,
 } from '@/lib/validation/species';
 import type { FieldErrors } from '@/lib/errors';
+import { assertRole } from '@/lib/auth/roles';
 
 // Editorial writes. Every function checks the editor role itself; callers pass the actor.
 // Each save is a new revision; `species.latest_revision` is bumped with a compare-and-set so two
@@ -29,7 +30,7 @@ export interface SavedRevision {
 }
 
 function assertEditor(actor: SessionUser) {
-  if (!hasRole(actor.role, 'editor')) throw new AppError('forbidden:species', 'Only species editors can change species.');
+  assertRole(actor, 'editor', 'species', 'Only species editors can change species.');
 }
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
