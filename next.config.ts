@@ -1,7 +1,8 @@
 import type { NextConfig } from 'next';
+import { API_POLICY } from './lib/http/csp';
 
-// The Content-Security-Policy is set per request by proxy.ts (a nonce for pages, a strict
-// policy for API answers); the headers here hold for every answer, built assets included.
+// The page Content-Security-Policy is set per request by proxy.ts (with a nonce); API answers get
+// the strict API policy here. The other headers hold for every answer, built assets included.
 
 const nextConfig: NextConfig = {
   // PGlite ships wasm and must be loaded by Node at run time, not bundled.
@@ -12,6 +13,7 @@ const nextConfig: NextConfig = {
   experimental: { authInterrupts: true },
   async headers() {
     return [
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: API_POLICY }] },
       {
         source: '/:path*',
         headers: [

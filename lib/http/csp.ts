@@ -1,4 +1,5 @@
-// The Content-Security-Policy of every answer, set per request by proxy.ts.
+// The Content-Security-Policy of every answer: pages per request by proxy.ts, API answers by
+// next.config.ts.
 // Pages: scripts only from our origin or carrying this request's nonce (Next puts the nonce on
 // its own bootstrap scripts when it finds it in the request's policy); no 'unsafe-inline' for
 // scripts. API answers: nothing in them is meant to run as a document, so nothing may (the
