@@ -1,6 +1,6 @@
 import 'server-only';
 import { photoFilesOfAnswer, removeStoredFiles } from '@/lib/data/photos';
-import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
+import { and, eq, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, trees, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';

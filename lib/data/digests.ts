@@ -7,7 +7,7 @@ import { env } from '@/lib/env';
 import { sendMail } from '@/lib/mail/transport';
 import { renderDigest } from '@/lib/mail/digest';
 import { createUnsubscribeToken, verifyUnsubscribeToken } from '@/lib/mail/unsubscribe';
-import { canWriteNotes, getNote } from '@/lib/data/notes';
+import { getNote } from '@/lib/data/notes';
 import { renderNoteWithLinks } from '@/lib/data/note-render';
 import { getClubSettings } from '@/lib/data/settings';
 import type { SessionUser } from '@/lib/auth/session';

@@ -3,8 +3,6 @@ import { and, desc, eq, gte, ilike, lte, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, species, users } from '@/db/schema';
 import { escapeLike } from '@/lib/data/users';
-import { AppError } from '@/lib/errors';
-import { canWriteNotes } from '@/lib/data/notes';
 import type { SessionUser } from '@/lib/auth/session';
 import type { LinkableAnswersQuery } from '@/lib/validation/notes';
 import { assertRole } from '@/lib/auth/roles';

@@ -2,7 +2,6 @@ import 'server-only';
 import { desc } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { outboxMessages } from '@/db/schema';
-import { AppError } from '@/lib/errors';
 import type { SessionUser } from '@/lib/auth/session';
 import { assertRole } from '@/lib/auth/roles';
 

@@ -1,7 +1,6 @@
 import 'server-only';
 import { getDb } from '@/db/client';
 import { clubSettings } from '@/db/schema';
-import { AppError } from '@/lib/errors';
 import { cachedRead, invalidateReads } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SettingsInput } from '@/lib/validation/auth';

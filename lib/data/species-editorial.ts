@@ -5,7 +5,6 @@ import { species, speciesRevisions } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { invalidateReads } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
-import { hasRole } from '@/lib/auth/roles';
 import { parseSpeciesMarkdown, speciesColumns } from '@/lib/species/content';
 import {
   speciesRecordSchema,
