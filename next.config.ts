@@ -1,21 +1,8 @@
 import type { NextConfig } from 'next';
+import { API_POLICY } from './lib/http/csp';
 
-const isProd = process.env.NODE_ENV === 'production';
-
-// The CSP allows inline scripts because Next's App Router streams inline bootstrap scripts;
-// everything else is same-origin only and framing is refused.
-const csp = [
-  "default-src 'self'",
-  "script-src 'self' 'unsafe-inline'" + (isProd ? '' : " 'unsafe-eval'"),
-  "style-src 'self' 'unsafe-inline'",
-  "img-src 'self' data: blob:",
-  "font-src 'self'",
-  "connect-src 'self'",
-  "object-src 'none'",
-  "base-uri 'self'",
-  "form-action 'self'",
-  "frame-ancestors 'none'",
-].join('; ');
+// The page Content-Security-Policy is set per request by proxy.ts (with a nonce); API answers get
+// the strict API policy here. The other headers hold for every answer, built assets included.
 
 const nextConfig: NextConfig = {
   // PGlite ships wasm and must be loaded by Node at run time, not bundled.
@@ -26,10 +13,10 @@ const nextConfig: NextConfig = {
   experimental: { authInterrupts: true },
   async headers() {
     return [
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: API_POLICY }] },
       {
         source: '/:path*',
         headers: [
-          { key: 'Content-Security-Policy', value: csp },
           { key: 'X-Content-Type-Options', value: 'nosniff' },
           { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
           { key: 'X-Frame-Options', value: 'DENY' },

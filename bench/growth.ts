@@ -1,7 +1,6 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { sql } from 'drizzle-orm';
 import { openDatabase } from '../db/open';
 import { setDbHandle } from '../db/client';
 import { seed } from '../db/seed';

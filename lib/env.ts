@@ -16,6 +16,10 @@ const schema = z.object({
   MAIL_FAKE: z.enum(['0', '1']).default('0'),
   MAIL_FROM: z.string().default('Candlewise <no-reply@candlewise.test>'),
   UPLOADS_DIR: z.string().min(1).default('./data/uploads'),
+  // Caps per member and per client (see lib/data/quotas.ts); tests and big clubs may raise them.
+  ANSWER_QUOTA: z.coerce.number().int().min(1).max(10_000_000).default(5000),
+  PHOTO_QUOTA: z.coerce.number().int().min(1).max(10_000_000).default(1000),
+  SIGNUPS_PER_CLIENT_PER_HOUR: z.coerce.number().int().min(1).max(10_000_000).default(10),
 });
 
 // An empty variable means unset (scripts pass DATABASE_URL='' to mean PGlite).

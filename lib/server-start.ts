@@ -1,6 +1,9 @@
 // Open the database at start (migrations apply here, so the first request does not pay for
 // them) and, in development, demo and tests, start the local SMTP fake.
 export async function startServer() {
+  // First, before any request: the client's address comes from the socket, not its headers.
+  const { installPeerStamp } = await import('@/lib/http/client-address');
+  installPeerStamp();
   const { getDb } = await import('@/db/client');
   const { masterSecret } = await import('@/lib/auth/secret');
   try {

@@ -5,7 +5,7 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
 
-echo "── typecheck";            npm run -s typecheck
+echo "── lint (types, ESLint, knip)"; npm run -s lint
 echo "── build";                npm run -s build
 echo "── unit";                 npm run -s test:unit
 echo "── crash safety";         npm run -s test:crash

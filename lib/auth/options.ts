@@ -12,6 +12,7 @@ import { signInSchema } from '@/lib/validation/auth';
 import { bumpTokenVersion, findAuthUserById, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
 import { clientIp, recordSignInFailure } from './rate-limit';
 import { sendSignInLink } from '@/lib/mail/templates';
+import { safeCallbackPath } from '@/lib/http/safe-redirect';
 
 const adapterMethods = [
   'createUser', 'getUser', 'getUserByEmail', 'getUserByAccount', 'updateUser', 'deleteUser', 'linkAccount',
@@ -29,6 +30,15 @@ function lazyAdapter(): Adapter {
   return Object.fromEntries(
     adapterMethods.map((m) => [m, async (...args: unknown[]) => (await load())[m](...args)]),
   ) as unknown as Adapter;
+}
+
+/** Send a sign-in link after the response, if the address belongs to an enabled account. */
+function queueSignInLink(identifier: string, url: string) {
+  setImmediate(() => {
+    hasActiveAccount(identifier)
+      .then((active) => (active ? sendSignInLink(identifier, url) : undefined))
+      .catch((e: unknown) => console.error('[candlewise] sign-in link not sent', e));
+  });
 }
 
 export const SESSION_MAX_AGE = 30 * 24 * 60 * 60;
@@ -52,7 +62,7 @@ export const authOptions: AuthOptions = {
         const parsed = signInSchema.safeParse(credentials);
         const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
         if (!parsed.success) {
-          recordSignInFailure(String(credentials?.email ?? '').toLowerCase(), ip);
+          recordSignInFailure(String(credentials?.email ?? ''), ip);
           return null;
         }
         const user = await verifyCredentials(parsed.data.email, parsed.data.password);
@@ -68,13 +78,19 @@ export const authOptions: AuthOptions = {
       server: env.smtpUrl,
       from: env.MAIL_FROM,
       async sendVerificationRequest({ identifier, url }) {
-        // Links go only to existing, enabled accounts (sign-up is the password form); the page
-        // says the same thing either way, so this reveals nothing about who is a member.
-        if (await hasActiveAccount(identifier)) await sendSignInLink(identifier, url);
+        // Links go only to existing, enabled accounts (sign-up is the password form). The look-up
+        // and the send are queued, not awaited: the answer comes back in the same time and with
+        // the same words for a member and a stranger, so neither says who is a member.
+        queueSignInLink(identifier, url);
       },
     }),
   ],
   callbacks: {
+    // Only a path on our own origin, parsed against it: `/\evil.example`, `/%09/evil.example`,
+    // `//evil.example` and the like all end on the home page.
+    async redirect({ url, baseUrl }) {
+      return `${baseUrl}${safeCallbackPath(url, baseUrl)}`;
+    },
     async signIn({ user }) {
       return user.email ? isEmailAllowedToSignIn(user.email) : false;
     },

@@ -1,10 +1,12 @@
 import 'server-only';
 import { photoFilesOfAnswer, removeStoredFiles } from '@/lib/data/photos';
-import { randomBytes } from 'node:crypto';
-import { and, desc, eq, or, sql, type SQL } from 'drizzle-orm';
+import { and, eq, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, trees, users } from '@/db/schema';
 import { AppError } from '@/lib/errors';
+import { isBoundedDate } from '@/lib/validation/bounds';
+import { answerIdPattern, newAnswerId } from '@/lib/ids';
+import { assertAnswerQuota } from '@/lib/data/quotas';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SaveAnswerBody } from '@/lib/validation/wizard';
 import type { Action, WizardInput, WizardResult } from '@/lib/wizard/types';
@@ -17,12 +19,8 @@ import { answerRowFromResult } from './answer-row';
 
 type Viewer = Pick<SessionUser, 'id'> | null;
 
-/** 12 characters of base64url from 9 random bytes (72 bits): short and unguessable. */
-export function newAnswerId(): string {
-  return randomBytes(9).toString('base64url');
-}
-
-export const answerIdPattern = /^[A-Za-z0-9_-]{10,32}$/;
+// The generator and the pattern live in lib/ids.ts with every other id's; re-exported here.
+export { answerIdPattern, newAnswerId } from '@/lib/ids';
 
 export interface AnswerDto {
   id: string;
@@ -78,6 +76,7 @@ export async function saveAnswer(user: SessionUser, body: SaveAnswerBody): Promi
     const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, treeId), eq(trees.ownerId, user.id))).limit(1);
     if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
   }
+  await assertAnswerQuota(user.id);
   const { result } = await runWizard(input);
   const id = newAnswerId();
   // createdAt set here at millisecond precision, so the keyset cursor round-trips exactly.
@@ -101,7 +100,7 @@ function decodeCursor(cursor: string): { createdAt: Date; id: string } {
   const raw = Buffer.from(cursor, 'base64url').toString('utf8');
   const [iso, id] = raw.split('|');
   const createdAt = new Date(iso);
-  if (!id || Number.isNaN(createdAt.getTime()) || !answerIdPattern.test(id)) {
+  if (!id || !isBoundedDate(createdAt) || !answerIdPattern.test(id)) {
     throw new AppError('bad_request:cursor', 'The page cursor is not valid.', { cursor: ['Invalid cursor'] });
   }
   return { createdAt, id };

@@ -8,10 +8,11 @@ import { unsubscribeKey } from '@/lib/auth/secret';
 import { sendMail } from '@/lib/mail/transport';
 import { renderDigest } from '@/lib/mail/digest';
 import { createUnsubscribeToken, verifyUnsubscribeToken } from '@/lib/mail/unsubscribe';
-import { canWriteNotes, getNote } from '@/lib/data/notes';
+import { getNote } from '@/lib/data/notes';
 import { renderNoteWithLinks } from '@/lib/data/note-render';
 import { getClubSettings } from '@/lib/data/settings';
 import type { SessionUser } from '@/lib/auth/session';
+import { assertRole } from '@/lib/auth/roles';
 
 // The e-mail digest: a published note sent to every active member who opted in, one message
 // each (each carries its own unsubscribe link), every send recorded in digest_sends.
@@ -34,7 +35,7 @@ export class DigestAlreadySentError extends AppError {
 }
 
 function requireWriter(actor: SessionUser) {
-  if (!canWriteNotes(actor)) throw new AppError('forbidden:notes', 'Only librarians and administrators send meeting notes.');
+  assertRole(actor, 'librarian', 'notes', 'Only librarians and administrators send meeting notes.');
 }
 
 export function unsubscribeUrlFor(userId: string, now = Date.now()): string {

@@ -3,10 +3,9 @@ import { and, desc, eq, gte, ilike, lte, or, sql, type SQL } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { answers, species, trees, users } from '@/db/schema';
 import { escapeLike } from '@/lib/data/users';
-import { AppError } from '@/lib/errors';
-import { canWriteNotes } from '@/lib/data/notes';
 import type { SessionUser } from '@/lib/auth/session';
 import type { LinkableAnswersQuery } from '@/lib/validation/notes';
+import { assertRole } from '@/lib/auth/roles';
 
 // The note editor's picker: answers shared with the club, searched by species, action, member
 // and date. Private answers never appear here, whoever searches.
@@ -26,7 +25,7 @@ export interface LinkableAnswerDto {
 }
 
 export async function searchLinkableAnswers(actor: Pick<SessionUser, 'role'>, q: LinkableAnswersQuery): Promise<LinkableAnswerDto[]> {
-  if (!canWriteNotes(actor)) throw new AppError('forbidden:notes', 'Only librarians and administrators write meeting notes.');
+  assertRole(actor, 'librarian', 'notes', 'Only librarians and administrators write meeting notes.');
   const conds: (SQL | undefined)[] = [eq(answers.visibility, 'club')];
   if (q.species) {
     const like = `%${escapeLike(q.species)}%`;

@@ -8,6 +8,7 @@ import { escapeLike } from '@/lib/data/users';
 import { extractInternalLinks } from '@/lib/markdown/render';
 import type { SessionUser } from '@/lib/auth/session';
 import { noteSlugFor, type NoteInput, type NotePatch, type NoteStatus } from '@/lib/validation/notes';
+import { assertRole } from '@/lib/auth/roles';
 
 // Meeting notes. Librarians and admins write them and see drafts; every other signed-in member
 // reads published notes only, and a draft answers them exactly like a note that does not exist.
@@ -40,7 +41,7 @@ type Tx = Db | Parameters<Parameters<Db['transaction']>[0]>[0];
 export const canWriteNotes = (viewer: Pick<SessionUser, 'role'> | null) => !!viewer && hasRole(viewer.role, 'librarian');
 
 function requireWriter(actor: Viewer) {
-  if (!canWriteNotes(actor)) throw new AppError('forbidden:notes', 'Only librarians and administrators write meeting notes.');
+  assertRole(actor, 'librarian', 'notes', 'Only librarians and administrators write meeting notes.');
 }
 
 const noteNotFound = () => new AppError('not_found:note', 'No such note.');

@@ -2,8 +2,8 @@ import 'server-only';
 import { desc } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { outboxMessages } from '@/db/schema';
-import { AppError } from '@/lib/errors';
 import type { SessionUser } from '@/lib/auth/session';
+import { assertRole } from '@/lib/auth/roles';
 
 export interface OutboxMessageDto {
   id: number;
@@ -26,7 +26,7 @@ const dtoColumns = {
 };
 
 function requireAdmin(actor: SessionUser) {
-  if (actor.role !== 'admin') throw new AppError('forbidden:outbox', 'Only administrators read the outbox.');
+  assertRole(actor, 'admin', 'outbox', 'Only administrators read the outbox.');
 }
 
 export async function listOutbox(actor: SessionUser, limit = 50): Promise<OutboxMessageDto[]> {

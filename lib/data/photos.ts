@@ -8,6 +8,7 @@ import { newStorageKey, storage } from '@/lib/storage';
 import { MAX_PHOTOS_PER_ITEM, type ProcessedPhoto } from '@/lib/uploads/image';
 import type { SessionUser } from '@/lib/auth/session';
 import { getAnswer } from '@/lib/data/answers';
+import { assertPhotoQuota } from '@/lib/data/quotas';
 
 // Shoot photos belong to an answer or a tree. Who may see a photo is who may see its item:
 // a tree's photos only its owner; an answer's photos its asker, and every signed-in member once
@@ -91,6 +92,7 @@ export async function assertCanAddPhoto(actor: SessionUser, target: PhotoTarget)
   const db = await getDb();
   const [{ n }] = await db.select({ n: count() }).from(photos).where(targetWhere(target));
   if (n >= MAX_PHOTOS_PER_ITEM) throw limitReached();
+  await assertPhotoQuota(actor.id);
 }
 
 const limitReached = () =>

@@ -1,10 +1,10 @@
 import 'server-only';
 import { getDb } from '@/db/client';
 import { clubSettings } from '@/db/schema';
-import { AppError } from '@/lib/errors';
 import { cachedRead, invalidateReads } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SettingsInput } from '@/lib/validation/auth';
+import { assertRole } from '@/lib/auth/roles';
 
 export interface ClubSettingsDto {
   clubName: string;
@@ -30,7 +30,7 @@ async function loadClubSettings(db: Awaited<ReturnType<typeof getDb>>): Promise<
 }
 
 export async function updateClubSettings(actor: SessionUser, input: SettingsInput): Promise<ClubSettingsDto> {
-  if (actor.role !== 'admin') throw new AppError('forbidden:settings', 'Only administrators change club settings.');
+  assertRole(actor, 'admin', 'settings', 'Only administrators change club settings.');
   const db = await getDb();
   const [row] = await db
     .insert(clubSettings)

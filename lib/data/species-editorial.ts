@@ -5,7 +5,6 @@ import { species, speciesRevisions } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { invalidateReads } from './read-cache';
 import type { SessionUser } from '@/lib/auth/session';
-import { hasRole } from '@/lib/auth/roles';
 import { parseSpeciesMarkdown, speciesColumns } from '@/lib/species/content';
 import {
   missingCitations,
@@ -16,6 +15,7 @@ import {
   type SpeciesRecord,
 } from '@/lib/validation/species';
 import type { FieldErrors } from '@/lib/errors';
+import { assertRole } from '@/lib/auth/roles';
 
 // Editorial writes. Every function checks the editor role itself; callers pass the actor.
 // Each save is a new revision; `species.latest_revision` is bumped with a compare-and-set so two
@@ -30,7 +30,7 @@ export interface SavedRevision {
 }
 
 function assertEditor(actor: SessionUser) {
-  if (!hasRole(actor.role, 'editor')) throw new AppError('forbidden:species', 'Only species editors can change species.');
+  assertRole(actor, 'editor', 'species', 'Only species editors can change species.');
 }
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];

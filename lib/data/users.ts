@@ -6,6 +6,7 @@ import { AppError } from '@/lib/errors';
 import { hashPassword, verifyPassword } from '@/lib/auth/password';
 import type { SignUpInput } from '@/lib/validation/auth';
 import type { SessionUser } from '@/lib/auth/session';
+import { assertRole } from '@/lib/auth/roles';
 
 export interface UserDto {
   id: string;
@@ -144,7 +145,7 @@ export async function updateProfile(actor: SessionUser, patch: { name?: string; 
 }
 
 function requireAdmin(actor: SessionUser) {
-  if (actor.role !== 'admin') throw new AppError('forbidden:users', 'Only administrators manage users.');
+  assertRole(actor, 'admin', 'users', 'Only administrators manage users.');
 }
 
 export function escapeLike(s: string) {

@@ -6,6 +6,7 @@ import rehypeStringify from 'rehype-stringify';
 import type { Root as HastRoot, Element, ElementContent } from 'hast';
 import { SKIP, visit } from 'unist-util-visit';
 import type { VFile } from 'vfile';
+import { markdownProblem } from './limits';
 
 // The one Markdown pipeline of Candlewise (species care notes, meeting notes, digests):
 // remark → remark-gfm → remark-rehype → rehype-sanitize → rehype-stringify.
@@ -90,17 +91,46 @@ const processor = remark()
   .use(markInternalLinks)
   .use(rehypeStringify);
 
+/** The source as escaped paragraphs: what is shown when it is over the limits or fails to render. */
+export function plainTextHtml(source: string): string {
+  const esc = (t: string) => t.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+  const capped = source.length > 20_000 ? `${source.slice(0, 20_000)}…` : source;
+  return capped
+    .split(/\n{2,}/)
+    .filter((p) => p.trim())
+    .map((p) => `<p class="markdown-unrendered">${esc(p)}</p>`)
+    .join('\n');
+}
+
+// Rendering never throws: a source over the limits (saved before they existed, or read from a
+// file) is shown as plain text, and so is anything the pipeline fails on.
 export async function renderMarkdown(source: string, options?: RenderOptions): Promise<string> {
-  return String(await processor.process({ value: source, data: { renderOptions: options } }));
+  if (markdownProblem(source)) return plainTextHtml(source);
+  try {
+    return String(await processor.process({ value: source, data: { renderOptions: options } }));
+  } catch {
+    return plainTextHtml(source);
+  }
 }
 
 export function renderMarkdownSync(source: string, options?: RenderOptions): string {
-  return String(processor.processSync({ value: source, data: { renderOptions: options } }));
+  if (markdownProblem(source)) return plainTextHtml(source);
+  try {
+    return String(processor.processSync({ value: source, data: { renderOptions: options } }));
+  } catch {
+    return plainTextHtml(source);
+  }
 }
 
 /** Every internal link in a Markdown source, deduplicated, in order of first appearance. */
 export function extractInternalLinks(source: string): InternalLink[] {
-  const tree = remark().use(remarkGfm).parse(source);
+  if (markdownProblem(source)) return [];
+  let tree;
+  try {
+    tree = remark().use(remarkGfm).parse(source);
+  } catch {
+    return [];
+  }
   const seen = new Set<string>();
   const out: InternalLink[] = [];
   visit(tree, (node) => {

@@ -3,6 +3,7 @@ import YAML from 'yaml';
 import type { FieldErrors } from '@/lib/errors';
 import { fieldErrorsOf } from '@/lib/validation/fields';
 import { missingCitations, speciesRecordSchema, type SpeciesRecord } from '@/lib/validation/species';
+import { markdownProblem } from '@/lib/markdown/limits';
 
 // A species file is YAML front matter (the species record) and a Markdown body (care notes).
 // Parsing never throws: a broken file comes back with its errors per field, so the import
@@ -39,6 +40,8 @@ export function parseSpeciesMarkdown(source: string): ParsedSpecies {
   if (body.length > MAX_BODY_CHARS) {
     return { ok: false, message: 'The care notes are too long.', fields: { body: [`Keep the care notes under ${MAX_BODY_CHARS} characters.`] } };
   }
+  const problem = markdownProblem(body);
+  if (problem) return { ok: false, message: 'The care notes cannot be shown.', fields: { body: [problem] } };
   const result = speciesRecordSchema.safeParse(data);
   if (!result.success) return { ok: false, message: 'Some fields are not valid.', fields: fieldErrorsOf(result.error) };
   // A species file is published content: every published value carries its citation.

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { boundedIsoDate, boundedIsoDateTime } from './bounds';
+import { markdownProblem } from '@/lib/markdown/limits';
 
 // Meeting notes: one schema for the editor form and for POST/PATCH /api/notes.
 
@@ -9,8 +11,14 @@ export const MAX_NOTE_BODY = 100_000;
 
 export const noteFieldsSchema = z.object({
   title: z.string().trim().min(1, { error: 'Give the note a title.' }).max(160, { error: 'Keep the title under 160 characters.' }),
-  meetingDate: z.iso.date({ error: 'Give the meeting date, like 2027-03-14.' }),
-  body: z.string().max(MAX_NOTE_BODY, { error: `Keep the note under ${MAX_NOTE_BODY.toLocaleString('en')} characters.` }),
+  meetingDate: boundedIsoDate('Give the meeting date, like 2027-03-14.'),
+  body: z
+    .string()
+    .max(MAX_NOTE_BODY, { error: `Keep the note under ${MAX_NOTE_BODY.toLocaleString('en')} characters.` })
+    .superRefine((s, ctx) => {
+      const problem = markdownProblem(s);
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    }),
   status: z.enum(noteStatuses, { error: 'Choose draft or published.' }),
 });
 
@@ -20,7 +28,7 @@ export type NoteInput = z.infer<typeof noteInputSchema>;
 /** PATCH: any subset; `expectedUpdatedAt` (from the loaded note) refuses a stale edit with 409. */
 export const notePatchSchema = noteFieldsSchema
   .partial()
-  .extend({ expectedUpdatedAt: z.iso.datetime({ error: 'Not a timestamp.' }).optional() })
+  .extend({ expectedUpdatedAt: boundedIsoDateTime('Not a timestamp.').optional() })
   .refine((p) => Object.keys(p).some((k) => k !== 'expectedUpdatedAt'), { error: 'Change at least one field.' });
 export type NotePatch = z.infer<typeof notePatchSchema>;
 
@@ -37,8 +45,8 @@ export const linkableAnswersQuerySchema = z.object({
   species: z.string().trim().max(80).optional(),
   action: z.enum(['pinch', 'prune', 'let-grow', 'decandle', 'wait']).optional(),
   member: z.string().trim().max(80).optional(),
-  from: z.iso.date().optional(),
-  to: z.iso.date().optional(),
+  from: boundedIsoDate().optional(),
+  to: boundedIsoDate().optional(),
 });
 export type LinkableAnswersQuery = z.infer<typeof linkableAnswersQuerySchema>;
 

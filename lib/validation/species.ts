@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { INT4_MAX, positiveInt4 } from './bounds';
+import { markdownProblem } from '@/lib/markdown/limits';
 
 // The species record: the front matter of content/species/*.md, the `data` of a species
 // revision, and the body of POST/PATCH /api/species. One schema for all three.
@@ -138,7 +140,14 @@ export function toWizardSpecies(rec: SpeciesRecord, revision: number): WizardSpe
 
 export const MAX_CARE_NOTES = 40_000;
 
-const careNotes = z.string().max(MAX_CARE_NOTES, { error: `Keep the care notes under ${MAX_CARE_NOTES} characters.` }).default('');
+const careNotes = z
+  .string()
+  .max(MAX_CARE_NOTES, { error: `Keep the care notes under ${MAX_CARE_NOTES} characters.` })
+  .superRefine((s, ctx) => {
+    const problem = markdownProblem(s);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem });
+  })
+  .default('');
 const editSummary = z.string().trim().max(300, { error: 'Keep the edit summary under 300 characters.' }).default('');
 
 /** POST /api/species: a new species as a draft or published at once. */
@@ -152,14 +161,14 @@ export type SpeciesCreateInput = z.infer<typeof speciesCreateSchema>;
 
 /** PATCH /api/species/[slug]: a new revision on top of `baseRevision` (optimistic concurrency). */
 export const speciesPatchSchema = speciesCreateSchema.extend({
-  baseRevision: z.number({ error: 'Send the revision you started from as baseRevision.' }).int().min(1),
+  baseRevision: z.number({ error: 'Send the revision you started from as baseRevision.' }).int().min(1).max(INT4_MAX),
 });
 export type SpeciesPatchInput = z.infer<typeof speciesPatchSchema>;
 
 /** POST /api/species/[slug]/revert: copy an old revision into a new one. */
 export const speciesRevertSchema = z.object({
-  toRevision: z.number().int().min(1),
-  baseRevision: z.number().int().min(1),
+  toRevision: positiveInt4(),
+  baseRevision: positiveInt4(),
   summary: editSummary,
   publish: z.boolean().default(true),
 });

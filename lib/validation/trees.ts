@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { boundedIsoDate } from './bounds';
+import { idSchema } from '@/lib/ids';
 
 // A member's tree: one schema for the create/edit form and for POST/PATCH /api/trees.
 // Dates are ISO calendar dates (YYYY-MM-DD); dimensions are centimetres of the soil surface.
@@ -17,7 +19,7 @@ export function todayIso(now = new Date()): string {
   return now.toISOString().slice(0, 10);
 }
 
-const isoDate = z.iso.date({ error: 'Use a date like 2026-04-12.' });
+const isoDate = boundedIsoDate('Use a date like 2026-04-12.');
 const optionalDate = isoDate.nullable();
 const dimension = z
   .number({ error: 'Give the size in centimetres.' })
@@ -82,7 +84,7 @@ export const treePatchSchema = treeFieldsSchema
   .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one field.' });
 export type TreePatch = z.infer<typeof treePatchSchema>;
 
-export const treeIdSchema = z.string().regex(/^[A-Za-z0-9_-]{8,40}$/);
+export const treeIdSchema = idSchema('tree');
 
 export const emptyTree: TreeInput = {
   name: '',

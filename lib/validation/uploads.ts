@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idSchema } from '@/lib/ids';
 
 const itemId = z.string().regex(/^[A-Za-z0-9_-]{6,40}$/, { error: 'Not a valid id.' });
 
@@ -8,7 +9,7 @@ export const photoTargetSchema = z
   .refine((t) => !!t.treeId !== !!t.answerId, { error: 'Give either treeId or answerId.', path: ['treeId'] })
   .transform((t) => (t.treeId ? { treeId: t.treeId } : { answerId: t.answerId! }));
 
-export const photoIdSchema = z.string().regex(/^[A-Za-z0-9_-]{8,40}$/);
+export const photoIdSchema = idSchema('photo');
 
 export const photoSizeSchema = z.object({ size: z.enum(['full', 'thumb']).default('full') });
 

@@ -124,8 +124,12 @@ describe('roles', () => {
 
   it('validates the admin patch and the settings body', async () => {
     const admin = await signedIn(base, 'admin@candlewise.test');
-    expect((await admin.json('/api/users/nope', 'PATCH', { role: 'emperor' })).status).toBe(422);
-    expect((await admin.json('/api/users/nope', 'PATCH', { role: 'editor' })).status).toBe(404);
+    // A malformed id names nobody: 404 before the body is looked at; a well-formed unknown one is
+    // validated first (422), then not found (404).
+    expect((await admin.json('/api/users/nope', 'PATCH', { role: 'emperor' })).status).toBe(404);
+    const unknown = '00000000-0000-4000-8000-000000000000';
+    expect((await admin.json(`/api/users/${unknown}`, 'PATCH', { role: 'emperor' })).status).toBe(422);
+    expect((await admin.json(`/api/users/${unknown}`, 'PATCH', { role: 'editor' })).status).toBe(404);
     const bad = await admin.json('/api/settings', 'PUT', { clubName: '', hemisphere: 'east', defaultLatitude: 120 });
     expect(bad.status).toBe(422);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['clubName', 'defaultLatitude', 'hemisphere']);
@@ -163,7 +167,8 @@ describe('e-mail sign-in link', () => {
     const admin = await signedIn(base, 'admin@candlewise.test');
     for (let i = 0; i < 40; i++) {
       const { body } = await admin.json('/api/outbox', 'GET');
-      const m = body.items.find((x: { to: string[] }) => x.to.includes(email));
+      // The link is sent after the answer (queued), so wait for that mail, not any mail.
+      const m = body.items.find((x: { to: string[]; text: string }) => x.to.includes(email) && x.text.includes('/api/auth/callback/email'));
       if (m) return (m.text as string).match(/https?:\/\/\S+/)![0];
       await new Promise((r) => setTimeout(r, 100));
     }

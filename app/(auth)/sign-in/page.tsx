@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { SignInForms } from './_components/sign-in-forms';
+import { env } from '@/lib/env';
+import { safeCallbackPath } from '@/lib/http/safe-redirect';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
@@ -14,7 +16,7 @@ const errors: Record<string, string> = {
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ error?: string; callbackUrl?: string }> }) {
   const sp = await searchParams;
-  const callbackUrl = sp.callbackUrl?.startsWith('/') && !sp.callbackUrl.startsWith('//') ? sp.callbackUrl : '/';
+  const callbackUrl = safeCallbackPath(sp.callbackUrl, env.NEXTAUTH_URL);
   return (
     <div className="mx-auto max-w-md space-y-6">
       <h1 className="page-title">Sign in</h1>

@@ -10,7 +10,7 @@ export const GET = route(async () => {
 });
 
 export const PATCH = route(async (req) => {
-  const patch = await parseJson(req, profilePatchSchema);
   const actor = await requireUser();
+  const patch = await parseJson(req, profilePatchSchema);
   return NextResponse.json({ user: await updateProfile(actor, patch) });
 });

@@ -6,14 +6,14 @@ import { noteInputSchema, noteListQuerySchema } from '@/lib/validation/notes';
 
 // GET: signed-in members (published notes; librarians and admins also drafts). POST: librarian or admin.
 export const GET = route(async (req) => {
-  const query = parseQuery(req, noteListQuerySchema);
   const viewer = await requireUser();
+  const query = parseQuery(req, noteListQuerySchema);
   return NextResponse.json({ items: await listNotes(viewer, query) });
 });
 
 export const POST = route(async (req) => {
-  const input = await parseJson(req, noteInputSchema);
   const actor = await requireRole('librarian', 'notes');
+  const input = await parseJson(req, noteInputSchema);
   const note = await createNote(actor, input);
   return NextResponse.json({ note }, { status: 201 });
 });

@@ -1,13 +1,11 @@
 import { NextResponse } from 'next/server';
-import { parseJson, route } from '@/lib/http/route';
+import { route } from '@/lib/http/route';
 import { settingsSchema } from '@/lib/validation/auth';
 import { getClubSettings, updateClubSettings } from '@/lib/data/settings';
-import { requireUser } from '@/lib/auth/session';
 
 export const GET = route(async () => NextResponse.json({ settings: await getClubSettings() }));
 
-export const PUT = route(async (req) => {
-  const input = await parseJson(req, settingsSchema);
-  const actor = await requireUser();
-  return NextResponse.json({ settings: await updateClubSettings(actor, input) });
-});
+// Administrators only: the role is checked before the body is looked at.
+export const PUT = route({ auth: 'admin', subject: 'settings', body: settingsSchema }, async (_req, _ctx, { user, body }) =>
+  NextResponse.json({ settings: await updateClubSettings(user, body) }),
+);

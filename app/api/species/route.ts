@@ -13,8 +13,8 @@ export const GET = route(async (req) => {
 });
 
 export const POST = route(async (req) => {
-  const input = await parseJson(req, speciesCreateSchema);
   const actor = await requireRole('editor', 'species');
+  const input = await parseJson(req, speciesCreateSchema);
   const saved = await createSpecies(actor, input);
   return NextResponse.json({ species: saved }, { status: 201 });
 });

@@ -11,8 +11,8 @@ export const GET = route(async () => {
 });
 
 export const POST = route(async (req) => {
-  const input = await parseJson(req, treeInputSchema);
   const actor = await requireUser();
+  const input = await parseJson(req, treeInputSchema);
   const tree = await createTree(actor, input);
   return NextResponse.json({ tree }, { status: 201 });
 });

@@ -4,18 +4,18 @@ import { requireUser } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
 import { addPhoto, assertCanAddPhoto, listPhotos } from '@/lib/data/photos';
 import { processPhoto } from '@/lib/uploads/image';
-import { readUploadForm } from '@/lib/uploads/multipart';
+import { MAX_UPLOAD_BODY_BYTES, readUploadForm } from '@/lib/uploads/multipart';
 import { isAcceptableUploadName, photoTargetSchema } from '@/lib/validation/uploads';
 
 // GET ?treeId= | ?answerId=: the photos of an item the viewer may see.
 export const GET = route(async (req) => {
-  const target = parseQuery(req, photoTargetSchema);
   const viewer = await requireUser();
+  const target = parseQuery(req, photoTargetSchema);
   return NextResponse.json({ items: await listPhotos(viewer, target) });
 });
 
 // POST multipart/form-data: `file` plus `treeId` or `answerId`. One photo per request.
-export const POST = route(async (req) => {
+export const POST = route({ maxBytes: MAX_UPLOAD_BODY_BYTES, tooLarge: { subject: 'file', field: 'file', message: 'The photo is larger than 10 MB.' } }, async (req) => {
   const actor = await requireUser();
   const form = await readUploadForm(req);
   const target = parseWith(photoTargetSchema, { treeId: form.get('treeId') ?? undefined, answerId: form.get('answerId') ?? undefined }, 400);

@@ -33,10 +33,17 @@ describe('security headers', () => {
     const d = directives(csp!);
     expect(d['frame-ancestors']).toEqual(["'none'"]);
     expect(d['object-src']).toEqual(["'none'"]);
-    expect(d['base-uri']).toEqual(["'self'"]);
-    expect(d['default-src']).toEqual(["'self'"]);
-    expect(d['script-src']).not.toContain("'unsafe-eval'");
-    expect(d['script-src'].some((s) => s === '*' || s.startsWith('http'))).toBe(false);
+    // Pages allow our own origin; API answers are never documents, so they allow nothing.
+    const api = p.startsWith('/api/');
+    expect(d['base-uri']).toEqual([api ? "'none'" : "'self'"]);
+    expect(d['default-src']).toEqual([api ? "'none'" : "'self'"]);
+    if (!api) {
+      expect(d['script-src']).not.toContain("'unsafe-eval'");
+      expect(d['script-src'].some((s) => s === '*' || s.startsWith('http'))).toBe(false);
+    } else {
+      expect(d['script-src']).toBeUndefined();
+      expect(d.sandbox).toEqual([]);
+    }
     expect(res.headers.get('x-content-type-options')).toBe('nosniff');
     expect(['no-referrer', 'same-origin', 'strict-origin', 'strict-origin-when-cross-origin']).toContain(res.headers.get('referrer-policy'));
     expect(res.headers.get('x-frame-options')).toBe('DENY');

@@ -2,6 +2,7 @@
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
+import { safeCallbackPath } from '@/lib/http/safe-redirect';
 
 const messages: Record<string, string> = {
   CredentialsSignin: 'E-mail or password is not right.',
@@ -26,7 +27,8 @@ export function SignInForms({ callbackUrl }: { callbackUrl: string }) {
     });
     setPending(false);
     if (res?.ok && !res.error) {
-      router.push(callbackUrl);
+      // Checked again here, against the page's own origin, right before the router follows it.
+      router.push(safeCallbackPath(callbackUrl, window.location.origin));
       router.refresh();
     } else {
       setError(res?.status === 429 ? messages.RateLimited : messages[res?.error ?? ''] ?? messages.CredentialsSignin);

@@ -16,9 +16,9 @@ export const GET = route<P>(async (_req, { params }) => {
 });
 
 export const PATCH = route<P>(async (req, { params }) => {
+  const user = await requireUser();
   const { id } = await params;
   const patch = await parseJson(req, patchAnswerSchema, { invalidStatus: 400 });
-  const user = await requireUser();
   return NextResponse.json(await updateAnswer(user, id, patch));
 });
 

@@ -20,8 +20,8 @@ const getQuery = z.object({ format: z.enum(['json', 'md']).default('json') });
 
 // GET: the note (JSON with its rendered HTML, or `?format=md` to download the Markdown).
 export const GET = route<Params>(async (req, { params }) => {
-  const { format } = parseQuery(req, getQuery);
   const viewer = await requireUser();
+  const { format } = parseQuery(req, getQuery);
   const note = await getNote(viewer, await slugOf(params));
   if (format === 'md') {
     return new NextResponse(noteAsMarkdown(note), {
@@ -36,8 +36,8 @@ export const GET = route<Params>(async (req, { params }) => {
 });
 
 export const PATCH = route<Params>(async (req, { params }) => {
-  const patch = await parseJson(req, notePatchSchema);
   const actor = await requireRole('librarian', 'notes');
+  const patch = await parseJson(req, notePatchSchema);
   return NextResponse.json({ note: await updateNote(actor, await slugOf(params), patch) });
 });
 

@@ -6,7 +6,7 @@ import { linkableAnswersQuerySchema } from '@/lib/validation/notes';
 
 // The note editor's picker: answers shared with the club (librarian or admin).
 export const GET = route(async (req) => {
-  const query = parseQuery(req, linkableAnswersQuerySchema);
   const actor = await requireRole('librarian', 'notes');
+  const query = parseQuery(req, linkableAnswersQuerySchema);
   return NextResponse.json({ items: await searchLinkableAnswers(actor, query) });
 });

@@ -6,7 +6,7 @@ import { notePreviewSchema } from '@/lib/validation/notes';
 
 // The editor's live preview: the same sanitized pipeline and link cards as the published page.
 export const POST = route(async (req) => {
-  const { body } = await parseJson(req, notePreviewSchema, { maxBytes: 400_000 });
   await requireRole('librarian', 'notes');
+  const { body } = await parseJson(req, notePreviewSchema, { maxBytes: 400_000 });
   return NextResponse.json({ html: await renderNoteBody(body) });
 });

@@ -16,8 +16,8 @@ export const GET = route<{ slug: string }>(async (req, ctx) => {
 });
 
 export const PATCH = route<{ slug: string }>(async (req, ctx) => {
+  const actor = await requireRole('editor', 'species');
   const slug = parseSlug(await ctx.params);
   const input = await parseJson(req, speciesPatchSchema);
-  const actor = await requireRole('editor', 'species');
   return NextResponse.json({ species: await updateSpecies(actor, slug, input) });
 });

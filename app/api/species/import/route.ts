@@ -5,8 +5,8 @@ import { commitSpeciesImport } from '@/lib/data/species-editorial';
 import { speciesImportSchema } from '@/lib/validation/species';
 
 // Editor or admin: import the files (all valid, or nothing is written: 422 with the fields per file).
-export const POST = route(async (req) => {
-  const input = await parseJson(req, speciesImportSchema, { maxBytes: 4_000_000 });
+export const POST = route({ maxBytes: 4_000_000 }, async (req) => {
   const actor = await requireRole('editor', 'species');
+  const input = await parseJson(req, speciesImportSchema, { maxBytes: 4_000_000 });
   return NextResponse.json({ results: await commitSpeciesImport(actor, input) }, { status: 201 });
 });

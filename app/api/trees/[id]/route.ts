@@ -21,8 +21,8 @@ export const GET = route<Params>(async (_req, { params }) => {
 });
 
 export const PATCH = route<Params>(async (req, { params }) => {
-  const patch = await parseJson(req, treePatchSchema);
   const actor = await requireUser();
+  const patch = await parseJson(req, treePatchSchema);
   const id = await idOf(params);
   return NextResponse.json({ tree: await updateTree(actor, id, patch) });
 });

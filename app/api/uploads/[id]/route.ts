@@ -15,8 +15,8 @@ async function idOf(params: Promise<Params>) {
 
 // The image itself, only for people allowed to see its tree or answer. `?size=thumb` for lists.
 export const GET = route<Params>(async (req, { params }) => {
-  const { size } = parseQuery(req, photoSizeSchema);
   const viewer = await requireUser();
+  const { size } = parseQuery(req, photoSizeSchema);
   const photo = await readPhoto(viewer, await idOf(params), size);
   return new NextResponse(new Uint8Array(photo.data), {
     status: 200,

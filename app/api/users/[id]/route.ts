@@ -1,15 +1,14 @@
 import { NextResponse } from 'next/server';
 import { z } from 'zod';
-import { parseJson, parseWith, route } from '@/lib/http/route';
+import { route } from '@/lib/http/route';
+import { idSchema } from '@/lib/ids';
 import { userPatchSchema } from '@/lib/validation/auth';
 import { updateUserByAdmin } from '@/lib/data/users';
-import { requireUser } from '@/lib/auth/session';
 
-const params = z.object({ id: z.string().min(1).max(64) });
+const params = z.object({ id: idSchema('user') });
 
-export const PATCH = route<{ id: string }>(async (req, ctx) => {
-  const { id } = parseWith(params, await ctx.params, 400);
-  const patch = await parseJson(req, userPatchSchema);
-  const actor = await requireUser();
-  return NextResponse.json({ user: await updateUserByAdmin(actor, id, patch) });
-});
+// Administrators only; a malformed id names nobody: 404, after the role check.
+export const PATCH = route(
+  { auth: 'admin', subject: 'users', params, notFound: 'user', body: userPatchSchema },
+  async (_req, _ctx, { user, params: { id }, body }) => NextResponse.json({ user: await updateUserByAdmin(user, id, body) }),
+);

@@ -24,9 +24,9 @@ export const GET = route<Params>(async (req, { params }) => {
 });
 
 export const POST = route<Params>(async (req, { params }) => {
+  const actor = await requireRole('librarian', 'notes');
   const hasBody = (req.headers.get('content-length') ?? '0') !== '0' || req.headers.has('content-type');
   const opts = hasBody ? await parseJson(req, sendDigestSchema) : {};
-  const actor = await requireRole('librarian', 'notes');
   const result = await sendNoteDigest(actor, await slugOf(params), opts);
   return NextResponse.json(result, { status: 201 });
 });

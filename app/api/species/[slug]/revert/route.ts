@@ -7,8 +7,8 @@ import { speciesRevertSchema } from '@/lib/validation/species';
 
 // Editor or admin: copy an old revision into a new one (published unless `publish: false`).
 export const POST = route<{ slug: string }>(async (req, ctx) => {
+  const actor = await requireRole('editor', 'species');
   const slug = parseSlug(await ctx.params);
   const input = await parseJson(req, speciesRevertSchema);
-  const actor = await requireRole('editor', 'species');
   return NextResponse.json({ species: await revertSpecies(actor, slug, input) }, { status: 201 });
 });

@@ -6,7 +6,7 @@ import { parseSlug } from '@/lib/http/species-params';
 
 // Signed-in users: members see published revisions only, editors every revision.
 export const GET = route<{ slug: string }>(async (_req, ctx) => {
-  const slug = parseSlug(await ctx.params);
   const viewer = await requireUser();
+  const slug = parseSlug(await ctx.params);
   return NextResponse.json({ revisions: await listSpeciesRevisions(viewer, slug) });
 });
