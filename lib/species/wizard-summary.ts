@@ -1,4 +1,16 @@
-import type { SpeciesRecord } from '@/lib/validation/species';
+import { toWizardSpecies, type SpeciesRecord } from '@/lib/validation/species';
+import { techniqueOf, type Technique } from '@/lib/wizard/groups';
+
+// What the wizard does for each group that makes no candles, in the engine's own terms.
+const nonPine: Partial<Record<Technique, string>> = {
+  'scale-foliage': 'Scale or needle foliage: the wizard suggests trimming long new shoots with scissors back to a fork that has green beyond it, never shearing or pulling tips off with fingers, and never cutting into the bare inner part of a branch.',
+  spruce: 'Buds along the shoot: the wizard suggests shortening strong new shoots while soft, and cutting hardened ones back to a side bud in late summer or autumn.',
+  fir: 'Firs bud less readily: the wizard suggests shortening only strong shoots, to a visible side bud, and leaving weak ones whole.',
+  larch: 'Deciduous: the wizard lets long shoots grow out in spring and shortens them to a bud or spur in summer; there are no needles to count.',
+  yew: 'Regrows from old wood: the wizard suggests trimming new shoots once they have grown out, in early summer.',
+  cedar: 'The wizard suggests shortening long soft shoots to a side shoot or tuft of needles; it has no published source for cedar technique.',
+  unknown: 'Candlewise has no sound rule for this group yet, so the wizard suggests no cuts.',
+};
 
 /**
  * A plain-language account of how a species' traits steer the wizard's answer. Derived from the
@@ -9,7 +21,7 @@ export function wizardSummary(rec: SpeciesRecord): string[] {
   const out: string[] = [];
   const makesCandles = rec.group === 'pine';
   if (!makesCandles) {
-    out.push('This is not a pine: there are no candles, so the wizard never suggests decandling and works with pinching, shortening and thinning shoots.');
+    out.push(`This is not a pine: there are no candles and the wizard never suggests decandling. ${nonPine[techniqueOf(toWizardSpecies(rec, 1))] ?? ''}`.trim());
   } else if (t.flushHabit.value === 'double') {
     out.push('Double flush: on a strong, established tree the wizard may suggest cutting the spring candles in early summer so a second, shorter flush follows. On a weak or newly repotted tree it says to let it grow instead.');
   } else if (t.flushHabit.value === 'polycyclic') {
