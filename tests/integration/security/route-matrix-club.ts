@@ -42,6 +42,13 @@ export const clubRows: RouteRow[] = [
   { route: 'DELETE /api/answers/[id]', file: 'app/api/answers/[id]/route.ts', method: 'DELETE', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/answers/${await newAnswer(f, a)}` }), expect: signedIn(204) },
   { route: 'GET /api/answers/[id]/rerun', file: 'app/api/answers/[id]/rerun/route.ts', method: 'GET', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/answers/${await ownAnswer(f, a)}/rerun` }), expect: signedIn(200) },
 
+  // The season
+  {
+    route: 'POST /api/season/degree-days', file: 'app/api/season/degree-days/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/season/degree-days', json: { base: 5, days: [{ date: '2027-03-01', tmin: 2, tmax: 11 }, { date: '2027-03-02', tmin: 8, tmax: 22 }] } }),
+    expect: every(200), fuzz: { as: 'anonymous' },
+  },
+
   // Species
   { route: 'GET /api/species', file: 'app/api/species/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/species?q=pine&limit=5' }), expect: every(200) },
   {
