@@ -49,6 +49,21 @@ export const clubRows: RouteRow[] = [
     expect: every(200), fuzz: { as: 'anonymous' },
   },
 
+  {
+    route: 'POST /api/season/records/preview', file: 'app/api/season/records/preview/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/season/records/preview', json: { scope: 'club', csv: 'date,tmin,tmax\n2026-04-01,2,11\n' } }), expect: atLeast('librarian', 200), fuzz: { as: 'librarian' },
+  },
+  {
+    route: 'POST /api/season/records/import', file: 'app/api/season/records/import/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/season/records/import', json: { scope: 'club', csv: 'date,tmin,tmax\n2026-04-01,2,11\n' } }), expect: atLeast('librarian', 201), fuzz: { as: 'librarian' },
+  },
+  { route: 'GET /api/trees/[id]/plan', file: 'app/api/trees/[id]/plan/route.ts', method: 'GET', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/trees/${await ownTree(f, a)}/plan` }), expect: signedIn(200) },
+  { route: 'GET /api/trees/[id]/plan.ics', file: 'app/api/trees/[id]/plan.ics/route.ts', method: 'GET', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/trees/${await ownTree(f, a)}/plan.ics` }), expect: signedIn(200) },
+  {
+    route: 'POST /api/trees/[id]/observations', file: 'app/api/trees/[id]/observations/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: async (f, a) => ({ path: `/api/trees/${await ownTree(f, a)}/observations`, json: { shoot: 'candle-extending' } }), expect: signedIn(201), fuzz: { as: 'member' },
+  },
+
   // Species
   { route: 'GET /api/species', file: 'app/api/species/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/species?q=pine&limit=5' }), expect: every(200) },
   {
