@@ -167,5 +167,6 @@ export const clubRows: RouteRow[] = [
   { route: 'GET /species/new', file: 'app/(club)/species/new/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/species/new' }), expect: pageAtLeast('editor') },
   { route: 'GET /trees/[id]', file: 'app/(club)/trees/[id]/page.tsx', method: 'GET', kind: 'page', body: 'none', request: async (f, a) => ({ path: `/trees/${await ownTree(f, a)}` }), expect: pageSignedIn },
   { route: 'GET /trees/[id]/edit', file: 'app/(club)/trees/[id]/edit/page.tsx', method: 'GET', kind: 'page', body: 'none', request: async (f, a) => ({ path: `/trees/${await ownTree(f, a)}/edit` }), expect: pageSignedIn },
+  { route: 'GET /season', file: 'app/(club)/season/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/season' }), expect: pageSignedIn },
   { route: 'GET /trees/new', file: 'app/(club)/trees/new/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/trees/new' }), expect: pageSignedIn },
 ];

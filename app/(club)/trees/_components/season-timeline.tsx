@@ -51,6 +51,7 @@ export function SeasonTimeline({ plan, stage }: { plan: TreePlanDto; stage: stri
       <div className="flex flex-wrap gap-3">
         {seenOptions.map((o) => <ObservationButton key={o.shoot} treeId={plan.treeId} body={{ shoot: o.shoot }} label={o.label} testId={`seen-${o.shoot}`} />)}
         <a href={`/api/trees/${plan.treeId}/plan.ics`} className="btn-secondary">Add to a calendar</a>
+        <a href="/season" className="btn-secondary">Temperature record</a>
       </div>
     </section>
   );
