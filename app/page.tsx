@@ -1,8 +1,14 @@
 import Link from 'next/link';
 import { getClubSettings } from '@/lib/data/settings';
+import { getCurrentUser } from '@/lib/auth/session';
+import { thisWeek } from '@/lib/data/plan';
+import { ThisWeek } from '@/components/season/this-week';
+import { todayIso } from '@/lib/validation/trees';
 
 export default async function HomePage() {
-  const settings = await getClubSettings();
+  const [settings, user] = await Promise.all([getClubSettings(), getCurrentUser()]);
+  const today = todayIso();
+  const week = user ? await thisWeek(user, today) : null;
   return (
     <div className="space-y-10">
       <section className="space-y-4">
@@ -14,6 +20,7 @@ export default async function HomePage() {
           is kept in your record, so the club can look back at what was done and what happened.
         </p>
       </section>
+      {week ? <ThisWeek items={week} today={today} /> : null}
       <section aria-label="Start here" className="grid gap-4 sm:grid-cols-2">
         <Link href="/ask" className="card block no-underline hover:border-moss-400" data-testid="door-ask">
           <h2 className="text-xl">Ask about a shoot</h2>

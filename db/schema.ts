@@ -185,3 +185,33 @@ export const photos = pgTable('photos', {
   bytes: integer('bytes').notNull(),
   createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
 }, (t) => [index('photos_answer_idx').on(t.answerId), index('photos_tree_idx').on(t.treeId)]);
+
+// Temperature records for the season's heat sums: one club-wide record (kept by a librarian or an
+// admin) and at most one per member. `scopeKey` is 'club' or 'member:<user id>'.
+export const temperatureRecords = pgTable('temperature_records', {
+  id: text('id').primaryKey(),
+  scopeKey: text('scope_key').notNull().unique(),
+  ownerId: text('owner_id').references(() => users.id, { onDelete: 'cascade' }),
+  name: text('name').notNull(),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+});
+
+// One row per day of a record; re-importing a day replaces it.
+export const temperatureDays = pgTable('temperature_days', {
+  recordId: text('record_id').notNull().references(() => temperatureRecords.id, { onDelete: 'cascade' }),
+  day: date('day').notNull(),
+  tmin: real('tmin').notNull(),
+  tmax: real('tmax').notNull(),
+}, (t) => [primaryKey({ columns: [t.recordId, t.day] })]);
+
+// What a member saw on a tree ("candles extending today") or marked done, re-anchoring its plan.
+export const treeObservations = pgTable('tree_observations', {
+  id: serial('id').primaryKey(),
+  treeId: text('tree_id').notNull().references(() => trees.id, { onDelete: 'cascade' }),
+  ownerId: text('owner_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  observedOn: date('observed_on').notNull(),
+  shoot: text('shoot'),
+  task: text('task'),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('tree_observations_tree_idx').on(t.treeId, t.observedOn)]);

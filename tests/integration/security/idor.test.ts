@@ -61,6 +61,9 @@ describe('another member’s private things, by id', () => {
       ['DELETE', `/api/uploads/${ids.answerPhoto}`],
       ['GET', `/api/uploads?treeId=${ids.tree}`],
       ['GET', `/api/uploads?answerId=${ids.answer}`],
+      ['GET', `/api/trees/${ids.tree}/plan`],
+      ['GET', `/api/trees/${ids.tree}/plan.ics`],
+      ['POST', `/api/trees/${ids.tree}/observations`, { task: 'candle-work' }],
     ];
     const failures: string[] = [];
     for (const [method, path, body] of attempts) {
@@ -101,6 +104,8 @@ describe('another member’s private things, by id', () => {
       const c = await f.client(role);
       expect((await c.json(`/api/answers/${ids.answer}`, 'GET')).status, role).toBe(404);
       expect((await c.json(`/api/trees/${ids.tree}`, 'GET')).status, role).toBe(404);
+      expect((await c.json(`/api/trees/${ids.tree}/plan`, 'GET')).status, role).toBe(404);
+      expect((await c.get(`/api/trees/${ids.tree}/plan.ics`)).status, role).toBe(404);
       expect((await c.get(`/api/uploads/${ids.treePhoto}`)).status, role).toBe(404);
     }
   });

@@ -42,6 +42,28 @@ export const clubRows: RouteRow[] = [
   { route: 'DELETE /api/answers/[id]', file: 'app/api/answers/[id]/route.ts', method: 'DELETE', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/answers/${await newAnswer(f, a)}` }), expect: signedIn(204) },
   { route: 'GET /api/answers/[id]/rerun', file: 'app/api/answers/[id]/rerun/route.ts', method: 'GET', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/answers/${await ownAnswer(f, a)}/rerun` }), expect: signedIn(200) },
 
+  // The season
+  {
+    route: 'POST /api/season/degree-days', file: 'app/api/season/degree-days/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/season/degree-days', json: { base: 5, days: [{ date: '2027-03-01', tmin: 2, tmax: 11 }, { date: '2027-03-02', tmin: 8, tmax: 22 }] } }),
+    expect: every(200), fuzz: { as: 'anonymous' },
+  },
+
+  {
+    route: 'POST /api/season/records/preview', file: 'app/api/season/records/preview/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/season/records/preview', json: { scope: 'club', csv: 'date,tmin,tmax\n2026-04-01,2,11\n' } }), expect: atLeast('librarian', 200), fuzz: { as: 'librarian' },
+  },
+  {
+    route: 'POST /api/season/records/import', file: 'app/api/season/records/import/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/season/records/import', json: { scope: 'club', csv: 'date,tmin,tmax\n2026-04-01,2,11\n' } }), expect: atLeast('librarian', 201), fuzz: { as: 'librarian' },
+  },
+  { route: 'GET /api/trees/[id]/plan', file: 'app/api/trees/[id]/plan/route.ts', method: 'GET', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/trees/${await ownTree(f, a)}/plan` }), expect: signedIn(200) },
+  { route: 'GET /api/trees/[id]/plan.ics', file: 'app/api/trees/[id]/plan.ics/route.ts', method: 'GET', kind: 'api', body: 'none', request: async (f, a) => ({ path: `/api/trees/${await ownTree(f, a)}/plan.ics` }), expect: signedIn(200) },
+  {
+    route: 'POST /api/trees/[id]/observations', file: 'app/api/trees/[id]/observations/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: async (f, a) => ({ path: `/api/trees/${await ownTree(f, a)}/observations`, json: { shoot: 'candle-extending' } }), expect: signedIn(201), fuzz: { as: 'member' },
+  },
+
   // Species
   { route: 'GET /api/species', file: 'app/api/species/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/species?q=pine&limit=5' }), expect: every(200) },
   {
@@ -145,5 +167,6 @@ export const clubRows: RouteRow[] = [
   { route: 'GET /species/new', file: 'app/(club)/species/new/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/species/new' }), expect: pageAtLeast('editor') },
   { route: 'GET /trees/[id]', file: 'app/(club)/trees/[id]/page.tsx', method: 'GET', kind: 'page', body: 'none', request: async (f, a) => ({ path: `/trees/${await ownTree(f, a)}` }), expect: pageSignedIn },
   { route: 'GET /trees/[id]/edit', file: 'app/(club)/trees/[id]/edit/page.tsx', method: 'GET', kind: 'page', body: 'none', request: async (f, a) => ({ path: `/trees/${await ownTree(f, a)}/edit` }), expect: pageSignedIn },
+  { route: 'GET /season', file: 'app/(club)/season/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/season' }), expect: pageSignedIn },
   { route: 'GET /trees/new', file: 'app/(club)/trees/new/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/trees/new' }), expect: pageSignedIn },
 ];

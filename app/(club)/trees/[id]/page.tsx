@@ -2,14 +2,14 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { requirePageUser } from '@/lib/auth/page-guard';
 import { listTreeAnswers } from '@/lib/data/trees';
-import { askParamsFor, describeCollected, describeContainer } from '@/lib/trees/describe';
+import { askParamsFor, describeCollected, describeContainer, isRecentlyCollected } from '@/lib/trees/describe';
 import { todayIso } from '@/lib/validation/trees';
 import { loadTreeOr404 } from '../_components/load-tree';
 import { DeleteTreeButton } from '../_components/delete-tree-button';
 import { listPhotos } from '@/lib/data/photos';
 import { PhotoPanel } from '@/components/photos/photo-panel';
-import { dueNowForTree } from '@/lib/data/tree-due-now';
-import { DueNowCard } from '../_components/due-now-card';
+import { getTreePlan } from '@/lib/data/plan';
+import { SeasonTimeline } from '../_components/season-timeline';
 
 export const metadata: Metadata = { title: 'Tree' };
 
@@ -23,7 +23,8 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
   const tree = await loadTreeOr404(actor, id);
   const [answers, photos] = await Promise.all([listTreeAnswers(actor, tree.id), listPhotos(actor, { treeId: tree.id })]);
   const latest = answers.length ? answers[answers.length - 1].stage : null;
-  const due = await dueNowForTree(tree, latest);
+  const plan = await getTreePlan(actor, tree.id);
+  const stage = isRecentlyCollected(tree, todayIso()) ? 'recovery' : latest ?? 'refinement';
   const ask = `/ask?${askParamsFor(tree, todayIso()).toString()}`;
 
   return (
@@ -41,7 +42,7 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
         </div>
       </header>
 
-      {due ? <DueNowCard due={due} askHref={ask} /> : null}
+      {plan ? <SeasonTimeline plan={plan} stage={stage} /> : null}
 
       <section aria-labelledby="facts" className="card">
         <h2 id="facts" className="mb-3 text-xl">About this tree</h2>
