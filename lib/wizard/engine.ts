@@ -96,6 +96,9 @@ const make = (action: Action, rules: RuleId[], watch: string[], howTo: string[] 
 /** Late summer, autumn, or (in the tropics) whenever growth has hardened: the time for autumn work. */
 const isLate = (c: Ctx) => c.tropics || c.s.season === 'autumn' || (c.s.season === 'summer' && c.s.monthOfSeason === 3);
 const isWinter = (c: Ctx) => !c.tropics && c.s.season === 'winter';
+// Winter dormancy decides only when the shoot agrees: a shoot seen extending in winter is answered
+// from what was seen, with the out-of-season caution.
+const dormantNow = (c: Ctx) => isWinter(c) && (c.input.shoot === 'dormant-bud' || c.input.shoot === 'needles-hardened');
 const growing = (c: Ctx) => c.tropics || c.s.season === 'spring' || c.s.season === 'summer';
 
 function bundlesPhrase(c: Ctx, n: number): string {
@@ -126,7 +129,7 @@ function development(c: Ctx): Decision {
   const pine = isPine(c.technique);
   if (c.technique === 'pine-double' && growing(c)) rules.push('flush.no-decandle-development');
   if (c.technique === 'unknown') return make('wait', [...rules, 'scope.no-rule'], []);
-  if (c.input.shoot === 'dormant-bud' || isWinter(c)) {
+  if (c.input.shoot === 'dormant-bud' || dormantNow(c)) {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['When the buds grow into new shoots, let them grow and needle out.']);
   }
@@ -183,7 +186,7 @@ function pineRefinement(c: Ctx): Decision {
     rules.push('pine.interior-let-grow', ...decandleAsides());
     return make('let-grow', rules, ['Interior shoots gain strength while the outer ones are reduced; leave them be this season.']);
   }
-  if (isWinter(c)) {
+  if (dormantNow(c)) {
     rules.push('season.winter-dormant');
     return make('wait', rules, ['In spring, shorten the candles that push beyond the silhouette while they are still soft.']);
   }
@@ -329,7 +332,7 @@ function pineAutumn(c: Ctx, rules: RuleId[]): Decision {
 function scaleRefinement(c: Ctx): Decision {
   const rules: RuleId[] = ['stage.refinement'];
   const position = c.input.position ?? 'at-silhouette';
-  if (isWinter(c) || c.input.shoot === 'dormant-bud') {
+  if (dormantNow(c) || c.input.shoot === 'dormant-bud') {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['When new growth extends in spring, trim the long shoots to a fork with scissors.']);
   }
@@ -360,7 +363,7 @@ function spruceRefinement(c: Ctx): Decision {
   const position = c.input.position ?? 'at-silhouette';
   const fir = c.technique === 'fir';
   const hemlock = c.species.group === 'hemlock';
-  if (isWinter(c) || c.input.shoot === 'dormant-bud') {
+  if (dormantNow(c) || c.input.shoot === 'dormant-bud') {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['When the buds open and the new shoots lengthen, shorten the strong ones beyond the outline.']);
   }
@@ -398,7 +401,7 @@ function spruceRefinement(c: Ctx): Decision {
 function larchRefinement(c: Ctx): Decision {
   const rules: RuleId[] = ['stage.refinement', 'larch.no-published'];
   const position = c.input.position ?? 'at-silhouette';
-  if (isWinter(c) || c.input.shoot === 'dormant-bud' || c.s.season === 'autumn') {
+  if (dormantNow(c) || c.input.shoot === 'dormant-bud' || c.s.season === 'autumn') {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['Next summer, once the long shoots have grown out, shorten them to a bud or spur.']);
   }
@@ -418,7 +421,7 @@ function larchRefinement(c: Ctx): Decision {
 function yewRefinement(c: Ctx): Decision {
   const rules: RuleId[] = ['stage.refinement'];
   const position = c.input.position ?? 'at-silhouette';
-  if (isWinter(c) || c.input.shoot === 'dormant-bud') {
+  if (dormantNow(c) || c.input.shoot === 'dormant-bud') {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['Once this year’s shoots have grown out, trim them back with scissors.']);
   }
@@ -438,7 +441,7 @@ function yewRefinement(c: Ctx): Decision {
 function cedarRefinement(c: Ctx): Decision {
   const rules: RuleId[] = ['stage.refinement', 'cedar.no-published'];
   const position = c.input.position ?? 'at-silhouette';
-  if (isWinter(c) || c.input.shoot === 'dormant-bud') {
+  if (dormantNow(c) || c.input.shoot === 'dormant-bud') {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['When new shoots lengthen, shorten the long ones with scissors.']);
   }
