@@ -1,7 +1,8 @@
 import { sql } from 'drizzle-orm';
 import type { Db } from '@/db/open';
 import {
-  answers, digestSends, noteLinks, notes, outboxMessages, photos, species, speciesRevisions, trees, users, verificationTokens,
+  answers, digestSends, noteLinks, notes, outboxMessages, photos, species, speciesRevisions, temperatureDays, temperatureRecords, treeObservations, trees,
+  users, verificationTokens,
 } from '@/db/schema';
 
 // Rows in every table, with the values a dump most easily gets wrong: quotes, backslashes,
@@ -30,6 +31,12 @@ export async function fillAwkwardRows(db: Db) {
     id: 'tree-awkward', ownerId: 'u-awkward-1', name: awkward, speciesSlug: 'pinus-awkwardii', containerShape: 'oval',
     containerLengthCm: 33.3, containerWidthCm: null, acquiredOn: '2019-02-28', collectedFromWild: true, collectedOn: '2018-10-01',
   });
+  await db.insert(temperatureRecords).values({ id: 'rec-awkward', scopeKey: 'club', ownerId: null, name: awkward });
+  await db.insert(temperatureDays).values([
+    { recordId: 'rec-awkward', day: '2027-03-01', tmin: -2.5, tmax: 11.3 },
+    { recordId: 'rec-awkward', day: '2027-03-02', tmin: 0.1, tmax: 9.9 },
+  ]);
+  await db.insert(treeObservations).values({ treeId: 'tree-awkward', ownerId: 'u-awkward-1', observedOn: '2027-04-20', shoot: 'candle-extending', task: null });
   await db.insert(answers).values([
     {
       id: 'ans-awkward-1', userId: 'u-awkward-1', treeId: 'tree-awkward', speciesSlug: 'pinus-awkwardii', speciesRevision: 2,
