@@ -105,11 +105,11 @@ describe('trees: owner only', () => {
     const fresh = (await a.json('/api/trees', 'POST', { ...wild, name: 'Hillside collected', collectedOn: daysAgo(100) })).body.tree;
     const html = await (await a.get(`/trees/${fresh.id}`)).text();
     expect(html).toContain(`/ask?tree=${fresh.id}&amp;species=pinus-sylvestris&amp;collected=1&amp;collectedOn=${daysAgo(100)}`);
-    expect(html).toMatch(/recovery stage \(collected from the wild within the last two years\)/);
+    expect(html).toMatch(/Recovery stage \(collected from the wild within the last two years\)/);
     // Five years in a container: no longer the recovery case.
     const old = (await a.json('/api/trees', 'POST', { ...wild, name: 'Long settled', collectedOn: daysAgo(5 * 365) })).body.tree;
     const oldHtml = await (await a.get(`/trees/${old.id}`)).text();
     expect(oldHtml).toContain(`collected=0&amp;collectedOn=${daysAgo(5 * 365)}`);
-    expect(oldHtml).toContain('refinement stage (no answer about this tree yet');
+    expect(oldHtml).toContain('Refinement stage (no answer about this tree yet');
   });
 });

@@ -109,7 +109,7 @@ export function HealthStep({ answers, onChange }: { answers: AskAnswers; onChang
       />
       <label className="flex min-h-target cursor-pointer items-center gap-3 rounded-card border-2 border-stone-200 bg-white p-3">
         <input type="checkbox" className="h-6 w-6 accent-moss-700" checked={!!answers.recentlyCollected} onChange={(e) => onChange({ recentlyCollected: e.target.checked })} />
-        <span className="text-lg">Collected from the wild within the last two seasons</span>
+        <span className="text-lg">Collected from the wild within the last two years</span>
       </label>
       {asksBackBuds(answers) && (
         <Choices

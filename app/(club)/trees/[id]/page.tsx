@@ -10,6 +10,7 @@ import { listPhotos } from '@/lib/data/photos';
 import { PhotoPanel } from '@/components/photos/photo-panel';
 import { getTreePlan } from '@/lib/data/plan';
 import { SeasonTimeline } from '../_components/season-timeline';
+import { stageFor } from '@/lib/data/tree-due-now';
 
 export const metadata: Metadata = { title: 'Tree' };
 
@@ -24,7 +25,8 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
   const [answers, photos] = await Promise.all([listTreeAnswers(actor, tree.id), listPhotos(actor, { treeId: tree.id })]);
   const latest = answers.length ? answers[answers.length - 1].stage : null;
   const plan = await getTreePlan(actor, tree.id);
-  const stage = isRecentlyCollected(tree, todayIso()) ? 'recovery' : latest ?? 'refinement';
+  const { stage: knownStage, basis: stageBasis } = stageFor(tree, latest, todayIso());
+  const stage = knownStage ?? 'refinement';
   const ask = `/ask?${askParamsFor(tree, todayIso()).toString()}`;
 
   return (
@@ -42,7 +44,7 @@ export default async function TreePage({ params }: { params: Promise<{ id: strin
         </div>
       </header>
 
-      {plan ? <SeasonTimeline plan={plan} stage={stage} /> : null}
+      {plan ? <SeasonTimeline plan={plan} stage={stage} stageBasis={stageBasis} /> : null}
 
       <section aria-labelledby="facts" className="card">
         <h2 id="facts" className="mb-3 text-xl">About this tree</h2>

@@ -14,13 +14,13 @@ const seenOptions = [
 ];
 
 /** The tree's season as a list of windows with a bar across the season year (CSS, not a chart). */
-export function SeasonTimeline({ plan, stage }: { plan: TreePlanDto; stage: string }) {
+export function SeasonTimeline({ plan, stage, stageBasis }: { plan: TreePlanDto; stage: string; stageBasis?: string }) {
   const span = 365;
   return (
     <section aria-labelledby="season" className="card space-y-4 border-moss-300 bg-moss-50" data-testid="season-timeline">
       <h2 id="season" className="text-xl">This season</h2>
       <p className="text-sm text-stone-700">
-        {`${stage[0].toUpperCase()}${stage.slice(1)} stage; ${basisWords[plan.basis]}.`}
+        {`${stage[0].toUpperCase()}${stage.slice(1)} stage${stageBasis ? ` (${stageBasis})` : ''}; ${basisWords[plan.basis]}.`}
         {plan.degreeDaysToDate !== null ? ` Heat sum so far: ${plan.degreeDaysToDate} °C days above +5 °C.` : ''}
       </p>
       {plan.notes.map((n) => <p key={n} className="text-sm text-stone-700">{n}</p>)}

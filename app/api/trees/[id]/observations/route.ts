@@ -11,8 +11,8 @@ type Params = { id: string };
 
 // "Seen today" (a shoot state) or "Done" (a task): re-anchors the tree's plan.
 export const POST = route<Params>(async (req, { params }) => {
-  const body = await parseJson(req, observationBodySchema);
   const actor = await requireUser();
+  const body = await parseJson(req, observationBodySchema);
   const tree = await getTree(actor, await treeIdOf(params));
   const date = body.date ?? todayIso();
   await addObservation(actor.id, tree.id, { date, shoot: body.shoot, task: body.task });
