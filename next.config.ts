@@ -1,4 +1,5 @@
 import type { NextConfig } from 'next';
+import { withSerwist } from '@serwist/turbopack';
 
 const isProd = process.env.NODE_ENV === 'production';
 
@@ -26,6 +27,8 @@ const nextConfig: NextConfig = {
   experimental: { authInterrupts: true },
   async headers() {
     return [
+      // The worker may control the whole site though it is served from /serwist/.
+      { source: '/serwist/:path*', headers: [{ key: 'Service-Worker-Allowed', value: '/' }, { key: 'Cache-Control', value: 'no-cache' }] },
       {
         source: '/:path*',
         headers: [
@@ -40,4 +43,4 @@ const nextConfig: NextConfig = {
   },
 };
 
-export default nextConfig;
+export default withSerwist(nextConfig);
