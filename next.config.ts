@@ -1,5 +1,6 @@
 import type { NextConfig } from 'next';
 import { API_POLICY } from './lib/http/csp';
+import { withSerwist } from '@serwist/turbopack';
 
 // The page Content-Security-Policy is set per request by proxy.ts (with a nonce); API answers get
 // the strict API policy here. The other headers hold for every answer, built assets included.
@@ -14,6 +15,8 @@ const nextConfig: NextConfig = {
   async headers() {
     return [
       { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: API_POLICY }] },
+      // The worker may control the whole site though it is served from /serwist/.
+      { source: '/serwist/:path*', headers: [{ key: 'Service-Worker-Allowed', value: '/' }, { key: 'Cache-Control', value: 'no-cache' }] },
       {
         source: '/:path*',
         headers: [
@@ -27,4 +30,4 @@ const nextConfig: NextConfig = {
   },
 };
 
-export default nextConfig;
+export default withSerwist(nextConfig);

@@ -3,6 +3,8 @@ import { headers } from 'next/headers';
 import './globals.css';
 import { sans, display } from './fonts';
 import { SiteHeader } from '@/components/site-header';
+import { ServiceWorker } from '@/components/offline/service-worker';
+import { OfflineBanner } from '@/components/offline/offline-banner';
 
 export const metadata: Metadata = {
   title: { default: 'Candlewise', template: '%s · Candlewise' },
@@ -18,16 +20,19 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   return (
     <html lang="en" className={`${sans.variable} ${display.variable}`}>
       <body className="min-h-screen">
+        <ServiceWorker>
         <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
           Skip to content
         </a>
         <SiteHeader />
+        <OfflineBanner />
         <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6 sm:py-10">
           {children}
         </main>
         <footer className="no-print mx-auto max-w-5xl px-4 pb-8 text-sm text-stone-600">
           Candlewise gives general guidance. Follow fertiliser labels and your local rules on collecting, planting out and chemicals.
         </footer>
+        </ServiceWorker>
       </body>
     </html>
   );

@@ -135,7 +135,12 @@ export const answers = pgTable('answers', {
   followUp: text('follow_up').notNull().default(''),
   visibility: text('visibility').$type<'private' | 'club'>().notNull().default('private'),
   createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  // The client's Idempotency-Key: a retried save (an offline queue replaying) finds its first answer.
+  idempotencyKey: text('idempotency_key'),
+  // What the phone worked out offline, when it differs from the server's re-evaluation.
+  phoneResult: jsonb('phone_result').$type<Record<string, unknown>>(),
 }, (t) => [
+  uniqueIndex('answers_user_idempotency_idx').on(t.userId, t.idempotencyKey),
   index('answers_user_created_idx').on(t.userId, t.createdAt.desc(), t.id.desc()),
   index('answers_visibility_created_idx').on(t.visibility, t.createdAt.desc()),
   index('answers_tree_idx').on(t.treeId),

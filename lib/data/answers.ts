@@ -8,7 +8,7 @@ import { isBoundedDate } from '@/lib/validation/bounds';
 import { answerIdPattern, newAnswerId } from '@/lib/ids';
 import { assertAnswerQuota } from '@/lib/data/quotas';
 import type { SessionUser } from '@/lib/auth/session';
-import type { SaveAnswerBody } from '@/lib/validation/wizard';
+import type { PhoneResult, SaveAnswerWithPhoneBody } from '@/lib/validation/offline';
 import type { Action, WizardInput, WizardResult } from '@/lib/wizard/types';
 import { compareResults, type ResultComparison } from '@/lib/wizard/compare';
 import { runWizard } from './wizard';
@@ -42,6 +42,8 @@ export interface AnswerDto {
   createdAt: string;
   askerName: string;
   isOwner: boolean;
+  /** What a phone worked out offline, kept only when the server's answer differs. */
+  phoneResult: WizardResult | null;
 }
 
 export interface AnswerListItem {
@@ -69,27 +71,78 @@ function visibleTo(viewer: Viewer) {
   return or(eq(answers.userId, viewer.id), eq(answers.visibility, 'club'))!;
 }
 
-export async function saveAnswer(user: SessionUser, body: SaveAnswerBody): Promise<{ id: string; url: string } & WizardResult> {
-  const { treeId, note, visibility, ...input } = body;
+export type SavedAnswer = { id: string; url: string; phoneResult: PhoneResult | null } & WizardResult;
+
+/**
+ * Evaluate and save. With an idempotency key, a repeat of the same save (an offline queue
+ * replaying, a retry after a lost response) returns the first answer with `created: false`
+ * instead of writing a second one. The phone's own result is kept only when it differs.
+ */
+export async function saveAnswerOnce(
+  user: SessionUser,
+  body: SaveAnswerWithPhoneBody,
+  opts: { idempotencyKey?: string } = {},
+): Promise<{ created: boolean; answer: SavedAnswer }> {
+  const { treeId, note, visibility, phoneResult, ...input } = body;
   const db = await getDb();
+  const key = opts.idempotencyKey;
+  if (key) {
+    const first = await answerByKey(user.id, key);
+    if (first) return { created: false, answer: first };
+  }
   if (treeId) {
     const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, treeId), eq(trees.ownerId, user.id))).limit(1);
     if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
   }
   await assertAnswerQuota(user.id);
   const { result } = await runWizard(input);
+  const differs = phoneResult ? phoneDiffers(phoneResult, result) : false;
   const id = newAnswerId();
   // createdAt set here at millisecond precision, so the keyset cursor round-trips exactly.
-  await db.insert(answers).values({
-    id,
-    userId: user.id,
-    treeId: treeId ?? null,
-    ...answerRowFromResult(input, result),
-    note: note ?? '',
-    visibility: visibility ?? 'private',
-    createdAt: new Date(),
-  });
-  return { id, url: answerUrl(id), ...result };
+  const inserted = await db
+    .insert(answers)
+    .values({
+      id,
+      userId: user.id,
+      treeId: treeId ?? null,
+      ...answerRowFromResult(input, result),
+      note: note ?? '',
+      visibility: visibility ?? 'private',
+      createdAt: new Date(),
+      idempotencyKey: key ?? null,
+      phoneResult: differs ? (phoneResult as Record<string, unknown>) : null,
+    })
+    // Two copies of one save racing each other: the unique (user, key) index lets one in.
+    .onConflictDoNothing()
+    .returning({ id: answers.id });
+  if (!inserted.length && key) {
+    const first = await answerByKey(user.id, key);
+    if (first) return { created: false, answer: first };
+  }
+  return { created: true, answer: { id, url: answerUrl(id), phoneResult: differs ? phoneResult! : null, ...result } };
+}
+
+/** Evaluate and save without a key: always a new answer. */
+export async function saveAnswer(user: SessionUser, body: SaveAnswerWithPhoneBody): Promise<SavedAnswer> {
+  return (await saveAnswerOnce(user, body)).answer;
+}
+
+/** The phone's answer differs when it would have the member do something else, or for other reasons. */
+export function phoneDiffers(phone: PhoneResult, server: WizardResult): boolean {
+  if (phone.action !== server.action || phone.engineVersion !== server.engineVersion || phone.speciesRevision !== server.speciesRevision) return true;
+  const rules = (rs: { rule: string }[]) => rs.map((r) => r.rule).sort().join(' ');
+  return rules(phone.reasons) !== rules(server.reasons);
+}
+
+async function answerByKey(userId: string, key: string): Promise<SavedAnswer | null> {
+  const db = await getDb();
+  const [r] = await db
+    .select({ id: answers.id, result: answers.result, phoneResult: answers.phoneResult })
+    .from(answers)
+    .where(and(eq(answers.userId, userId), eq(answers.idempotencyKey, key)))
+    .limit(1);
+  if (!r) return null;
+  return { id: r.id, url: answerUrl(r.id), phoneResult: (r.phoneResult as PhoneResult | null) ?? null, ...(r.result as unknown as WizardResult) };
 }
 
 function encodeCursor(createdAt: Date, id: string) {
@@ -172,7 +225,7 @@ export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto |
       speciesRevision: answers.speciesRevision, engineVersion: answers.engineVersion, action: answers.action,
       stage: answers.stage, season: answers.season, observedOn: answers.observedOn, input: answers.input,
       result: answers.result, note: answers.note, followUp: answers.followUp, visibility: answers.visibility,
-      createdAt: answers.createdAt, askerName: users.name,
+      createdAt: answers.createdAt, askerName: users.name, phoneResult: answers.phoneResult,
     })
     .from(answers)
     .innerJoin(users, eq(users.id, answers.userId))
@@ -186,6 +239,7 @@ export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto |
     season: r.season, observedOn: r.observedOn, treeId: r.userId === viewer.id ? r.treeId : null,
     input: r.input as unknown as WizardInput, result, note: r.note, followUp: r.followUp, visibility: r.visibility,
     createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName), isOwner: r.userId === viewer.id,
+    phoneResult: (r.phoneResult as unknown as WizardResult | null) ?? null,
   };
 }
 

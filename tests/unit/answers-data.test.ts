@@ -4,7 +4,7 @@ import { openDatabase, type DbHandle } from '@/db/open';
 import { setDbHandle } from '@/db/client';
 import { seed } from '@/db/seed';
 import { trees, users } from '@/db/schema';
-import { getAnswer, getAnswerPreview, listOwnAnswers, newAnswerId, rerunAnswer, saveAnswer, updateAnswer } from '@/lib/data/answers';
+import { getAnswer, getAnswerPreview, listOwnAnswers, newAnswerId, phoneDiffers, rerunAnswer, saveAnswer, saveAnswerOnce, updateAnswer } from '@/lib/data/answers';
 import { getTreePrefill } from '@/lib/data/wizard';
 import type { SessionUser } from '@/lib/auth/session';
 
@@ -72,5 +72,50 @@ describe('answer previews for links', () => {
     const list = await listOwnAnswers(wren, { limit: 100 });
     expect(list.items[0].id).toBe(a.id);
     expect((await listOwnAnswers(tamsin, {})).items).toEqual([]);
+  });
+});
+
+describe('saving with an idempotency key', () => {
+  it('writes one answer for one key and returns it again for a repeat', async () => {
+    const before = (await listOwnAnswers(wren, { limit: 100 })).items.length;
+    const key = 'phone-key-0000000001';
+    const first = await saveAnswerOnce(wren, { ...body, note: 'first try' }, { idempotencyKey: key });
+    const again = await saveAnswerOnce(wren, { ...body, note: 'first try' }, { idempotencyKey: key });
+    expect(first.created).toBe(true);
+    expect(again.created).toBe(false);
+    expect(again.answer.id).toBe(first.answer.id);
+    expect(again.answer.action).toBe(first.answer.action);
+    expect((await listOwnAnswers(wren, { limit: 100 })).items.length).toBe(before + 1);
+  });
+
+  it('keeps keys per member: the same key from another member is a new answer', async () => {
+    const key = 'phone-key-0000000002';
+    const a = await saveAnswerOnce(wren, { ...body }, { idempotencyKey: key });
+    const b = await saveAnswerOnce(tamsin, { ...body }, { idempotencyKey: key });
+    expect(b.created).toBe(true);
+    expect(b.answer.id).not.toBe(a.answer.id);
+    expect(await getAnswer(a.answer.id, tamsin)).toBeNull();
+  });
+
+  it('lets only one of two racing copies in', async () => {
+    const key = 'phone-key-0000000003';
+    const [x, y] = await Promise.all([
+      saveAnswerOnce(wren, { ...body }, { idempotencyKey: key }),
+      saveAnswerOnce(wren, { ...body }, { idempotencyKey: key }),
+    ]);
+    expect(x.answer.id).toBe(y.answer.id);
+    expect([x.created, y.created].sort()).toEqual([false, true]);
+  });
+
+  it('keeps the phone result only when it differs from the server', async () => {
+    const server = await saveAnswer(wren, { ...body });
+    const same = { action: server.action, headline: server.headline, engineVersion: server.engineVersion, speciesRevision: server.speciesRevision, reasons: server.reasons.map((r) => ({ ...r })) };
+    const agreed = await saveAnswer(wren, { ...body, phoneResult: same });
+    expect((await getAnswer(agreed.id, wren))!.phoneResult).toBeNull();
+    const older = { ...same, action: 'wait' as const, speciesRevision: server.speciesRevision - 1 };
+    const differed = await saveAnswer(wren, { ...body, phoneResult: older });
+    expect((await getAnswer(differed.id, wren))!.phoneResult).toMatchObject({ action: 'wait', speciesRevision: server.speciesRevision - 1 });
+    expect(phoneDiffers(older, server)).toBe(true);
+    expect(phoneDiffers(same, server)).toBe(false);
   });
 });
