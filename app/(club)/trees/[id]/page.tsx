@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { requirePageUser } from '@/lib/auth/page-guard';
 import { listTreeAnswers } from '@/lib/data/trees';
-import { askParamsFor, describeCollected, describeContainer, isRecentlyCollected } from '@/lib/trees/describe';
+import { askParamsFor, describeCollected, describeContainer } from '@/lib/trees/describe';
 import { todayIso } from '@/lib/validation/trees';
 import { loadTreeOr404 } from '../_components/load-tree';
 import { DeleteTreeButton } from '../_components/delete-tree-button';
