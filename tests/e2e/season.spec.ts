@@ -47,4 +47,7 @@ test('a member imports a record, reads a treeâ€™s timeline and marks this weekâ€
   await page.screenshot({ path: screenshotPath('this-week-phone'), fullPage: true });
   await mine.getByTestId('week-done').click();
   await expect(mine).toHaveCount(0);
+
+  // Leave member2's trees as the other specs expect them.
+  expect((await page.request.delete(`/api/trees/${id}`)).ok()).toBe(true);
 });
