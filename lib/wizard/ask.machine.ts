@@ -1,6 +1,6 @@
 import { assign, fromPromise, setup } from 'xstate';
 import type { EvaluateBody } from '@/lib/validation/wizard';
-import type { Branching, ContainerInput, Health, Hemisphere, Position, ShootState, WizardResult } from './types';
+import type { Branching, CandleStrength, ContainerInput, Health, Hemisphere, Position, ShootState, WizardResult } from './types';
 
 // The /ask wizard as a state machine. Pure: evaluating and saving are actors the page injects
 // (machine.provide), so the machine is tested with createActor and no network.
@@ -17,6 +17,10 @@ export interface AskAnswers {
   health?: Health;
   recentlyCollected?: boolean;
   backBuds?: boolean;
+  /** Optional: a tree repotted this year is never decandled. */
+  repottedThisYear?: boolean;
+  /** Optional: this candle against the others on the tree (the engine assumes average). */
+  candleStrength?: CandleStrength;
   date?: string;
   hemisphere?: Hemisphere;
   latitude?: number;
@@ -89,6 +93,8 @@ export function toEvaluateBody(a: AskAnswers): EvaluateBody {
   if (a.hemisphere) body.hemisphere = a.hemisphere;
   if (typeof a.latitude === 'number') body.latitude = a.latitude;
   if (a.recentlyCollected) body.recentlyCollected = true;
+  if (a.repottedThisYear) body.repottedThisYear = true;
+  if (a.candleStrength) body.candleStrength = a.candleStrength;
   if (asksBackBuds(a) && typeof a.backBuds === 'boolean') body.backBuds = a.backBuds;
   if (a.container) body.container = a.container;
   return body;

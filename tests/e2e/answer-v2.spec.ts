@@ -6,7 +6,7 @@ import { AskPage } from './pages/ask';
 // the trade words it uses, each opening to its explanation.
 test.use({ viewport: { width: 360, height: 780 }, hasTouch: true, isMobile: true });
 
-async function runTo(page: Page, o: { species: string; shoot: string; position?: string; health: string; date: string }) {
+async function runTo(page: Page, o: { species: string; shoot: string; position?: string; health: string; date: string; repotted?: boolean }) {
   const ask = new AskPage(page);
   await ask.open(`?species=${o.species}`);
   await ask.expectStep('branching');
@@ -17,6 +17,7 @@ async function runTo(page: Page, o: { species: string; shoot: string; position?:
   await ask.choose('position', o.position ?? 'beyond-silhouette');
   await ask.next();
   await ask.choose('health', o.health);
+  if (o.repotted) await page.getByTestId('repotted-this-year').check();
   await ask.next();
   await ask.expectStep('when');
   await page.getByLabel('Date you looked at the tree').fill(o.date);
@@ -49,6 +50,13 @@ test('a decandle on a strong black pine once its needles open', async ({ page })
   await openTerm(page, 'decandle');
   await expect(page.getByTestId('feed-now')).toHaveText('Do not feed now');
   await page.screenshot({ path: screenshotPath('answer-v2-decandle-360'), fullPage: true });
+});
+
+test('the same black pine repotted this year keeps its candles', async ({ page }) => {
+  // common practice, no published source: no repotting and candle cutting in one year
+  await runTo(page, { species: 'pinus-thunbergii', shoot: 'needles-opening', health: 'strong', date: '2027-06-20', repotted: true });
+  await expect(page.getByTestId('answer-action').getByRole('heading')).not.toHaveText(/decandle/i);
+  await expect(page.getByTestId('reasons')).toContainText('repotted this year');
 });
 
 test('autumn on a Scots pine at the outline: select buds and thin old needles', async ({ page }) => {

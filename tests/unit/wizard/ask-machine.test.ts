@@ -75,6 +75,20 @@ describe('ask machine', () => {
     expect(actor.getSnapshot().context.result?.action).toBe('prune');
   });
 
+  it('passes "repotted this year" and the candle strength to the engine, so a repotted black pine is not decandled', async () => {
+    const { actor, calls } = start({
+      answers: { species: 'pinus-thunbergii', branching: 'tertiary', shoot: 'needles-opening', position: 'beyond-silhouette', date: '2027-06-20' },
+      step: 'health',
+    });
+    actor.send({ type: 'SET', answers: { health: 'strong', repottedThisYear: true, candleStrength: 'strong' } });
+    actor.send({ type: 'NEXT' });
+    actor.send({ type: 'NEXT' });
+    await waitFor(actor, (x) => x.matches('answer'));
+    expect(calls.evaluate[0]).toMatchObject({ repottedThisYear: true, candleStrength: 'strong' });
+    // common practice, no published source: no repotting and candle cutting in one year
+    expect(actor.getSnapshot().context.result?.action).not.toBe('decandle');
+  });
+
   it('keeps earlier answers going back and forward', async () => {
     const { actor, step } = start({ answers: { ...full } });
     await waitFor(actor, (x) => x.matches('asking'));

@@ -111,6 +111,21 @@ export function HealthStep({ answers, onChange }: { answers: AskAnswers; onChang
         <input type="checkbox" className="h-6 w-6 accent-moss-700" checked={!!answers.recentlyCollected} onChange={(e) => onChange({ recentlyCollected: e.target.checked })} />
         <span className="text-lg">Collected from the wild within the last two years</span>
       </label>
+      <label className="flex min-h-target cursor-pointer items-center gap-3 rounded-card border-2 border-stone-200 bg-white p-3">
+        <input type="checkbox" className="h-6 w-6 accent-moss-700" checked={!!answers.repottedThisYear} onChange={(e) => onChange({ repottedThisYear: e.target.checked })} data-testid="repotted-this-year" />
+        <span className="text-lg">Repotted this year</span>
+      </label>
+      {answers.branching === 'tertiary' && answers.shoot !== 'dormant-bud' && (
+        <Choices
+          name="candleStrength" legend="How strong is this shoot against the others on the tree? (optional)"
+          value={answers.candleStrength} onChange={(v) => onChange({ candleStrength: v })}
+          options={[
+            { value: 'strong', title: 'One of the strongest', detail: 'Longer and thicker than most of the tree’s new shoots.' },
+            { value: 'average', title: 'About average', detail: 'Like most of the new shoots on the tree.' },
+            { value: 'weak', title: 'Weaker than most', detail: 'Short or thin next to the others.' },
+          ]}
+        />
+      )}
       {asksBackBuds(answers) && (
         <Choices
           name="backBuds" legend="Are there back buds on older wood behind the tip?"
