@@ -2,7 +2,7 @@ import { defaultCache } from '@serwist/turbopack/worker';
 import { NetworkFirst, Serwist, type PrecacheEntry, type SerwistGlobalConfig } from 'serwist';
 
 // Candlewise's service worker: Next's assets precached, pages network-first, and the wizard page
-// answered from the cache whatever its query (?step=, ?tree=) when there is no signal.
+// (cached network-first when visited) answered from that copy whatever its query when there is no signal.
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -27,9 +27,6 @@ const serwist = new Serwist({
     { matcher: ({ request, url }) => request.mode === 'navigate' && url.pathname === '/ask', handler: askPage },
     ...defaultCache,
   ],
-  fallbacks: {
-    entries: [{ url: '/ask', matcher: ({ request }) => request.destination === 'document' }],
-  },
 });
 
 serwist.addEventListeners();
