@@ -114,7 +114,7 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-halepensis', 'needleLengthMm', { min: 40, max: 120 }, 'Flora of New Zealand vol. 4 (Webb et al. 1988): (20–)40–120(–170) mm'],
   ['pinus-halepensis', 'nativeRange', 'The Mediterranean region, from Morocco and Spain to Libya, Greece and Israel.', 'Oregon State University Landscape Plants'],
   ['pinus-halepensis', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
-  ['pinus-halepensis', 'wildingCaution', true, 'Richardson & Rejmánek 2004, Conifers as invasive aliens: a global survey and predictive framework, Diversity and Distributions 10: 321–331'],
+  ['pinus-halepensis', 'wildingCaution', true, '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004)'],
   // Pinus heldreichii
   ['pinus-heldreichii', 'needlesPerFascicle', 2, 'Flora Europaea vol. 1 (Tutin et al. 1964)'],
   ['pinus-heldreichii', 'flushHabit', 'single', TRADE], // common practice, no published source
@@ -164,7 +164,7 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-pinaster', 'vigour', 'high', 'Bean, Trees and Shrubs Online: grows with great rapidity as a young tree'],
   ['pinus-pinaster', 'nativeRange', 'Western Mediterranean and Atlantic Europe: Portugal to Greece and Algeria to Dalmatia, much extended by planting.', 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5)'],
   ['pinus-pinaster', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
-  ['pinus-pinaster', 'wildingCaution', true, 'Richardson & Rejmánek 2004, Conifers as invasive aliens: a global survey and predictive framework, Diversity and Distributions 10: 321–331'],
+  ['pinus-pinaster', 'wildingCaution', true, '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004)'],
   // Pinus pinea
   ['pinus-pinea', 'shootHabit', 'uninodal', 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5): spring-shoots uninodal'],
   ['pinus-pinea', 'needlesPerFascicle', 2, 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5)'],
@@ -184,7 +184,7 @@ export const speciesValueTable: ValueRow[] = [
   // Pinus radiata
   ['pinus-radiata', 'needlesPerFascicle', 3, 'Flora of North America vol. 2 (1993)'],
   ['pinus-radiata', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
-  ['pinus-radiata', 'wildingCaution', true, 'Richardson & Rejmánek 2004, Conifers as invasive aliens: a global survey and predictive framework, Diversity and Distributions 10: 321–331; New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
+  ['pinus-radiata', 'wildingCaution', true, '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004); New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
   // Pinus resinosa
   ['pinus-resinosa', 'needlesPerFascicle', 2, 'Flora of North America vol. 2 (1993)'],
   ['pinus-resinosa', 'needleLengthMm', { min: 80, max: 150 }, 'Wisconsin State Herbarium, Flora of Wisconsin key to Pinus: leaves 8–15 cm'],
