@@ -1,4 +1,7 @@
 import type { WizardResult } from '@/lib/wizard/types';
+import { candleKeepText } from '@/lib/wizard/candle-keep';
+
+const capitalise = (t: string) => t.charAt(0).toUpperCase() + t.slice(1);
 
 // The answer, shown the same way in the wizard and on a saved answer's page.
 
@@ -7,12 +10,6 @@ const seasonLabel = { winter: 'Winter', spring: 'Spring', summer: 'Summer', autu
 const actionTone: Record<WizardResult['action'], string> = {
   pinch: 'bg-moss-700', prune: 'bg-bark-700', decandle: 'bg-bark-800', 'let-grow': 'bg-moss-600', thin: 'bg-moss-800', wait: 'bg-stone-700',
 };
-
-/** "Keep about a third to a half of this candle", from the fraction to leave. */
-export function candleKeepSentence(k: { min: number; max: number }): string {
-  const word = (x: number) => (x <= 0.34 ? 'a third' : x <= 0.5 ? 'a half' : x <= 0.67 ? 'two-thirds' : 'three-quarters');
-  return `Keep about ${word(k.min)} to ${word(k.max)} of this candle`;
-}
 
 export function AnswerResult({ result }: { result: WizardResult }) {
   const f = result.fertilizer;
@@ -23,7 +20,7 @@ export function AnswerResult({ result }: { result: WizardResult }) {
         <h2 id="answer-headline" className="mt-1 font-display text-3xl font-semibold text-white sm:text-4xl">{result.action === 'pinch' || result.action === 'prune' ? result.headline.split(':')[0] : result.headline}</h2>
         {result.candleKeep ? (
           <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-candle">
-            {candleKeepSentence(result.candleKeep)}
+            {capitalise(candleKeepText(result.candleKeep))}
           </p>
         ) : null}
         {result.keepNeedleBundles != null ? (

@@ -1,5 +1,6 @@
 import type { WizardSpecies } from '@/lib/validation/species';
 import { decandleWindowPosition, DECANDLE_MIN_DEGREE_DAYS, TROPIC_LATITUDE, type WindowPosition } from './decandle-window';
+import { candleKeepText, fractionWords } from './candle-keep';
 import { feedingPlan } from './feeding';
 import { bundleWord, isPine, techniqueOf, type Technique } from './groups';
 import { CAUTIONS, ENGINE_VERSION, reason, type RuleId } from './rules';
@@ -57,15 +58,6 @@ export function candleKeepFor(technique: Technique, strength: CandleStrength): {
 /** Needle bundles to leave below a cut on a hardened pine shoot: strong shoots are cut harder. */
 export function bundlesToKeep(strength: CandleStrength): number {
   return strength === 'strong' ? 2 : strength === 'average' ? 3 : 4;
-}
-
-const fractionWords = (k: { min: number; max: number }) => {
-  const word = (x: number) => (x <= 0.34 ? 'a third' : x <= 0.5 ? 'a half' : x <= 0.67 ? 'two-thirds' : 'three-quarters');
-  return `about ${word(k.min)} to ${word(k.max)}`;
-};
-
-export function candleKeepText(k: { min: number; max: number }): string {
-  return `keep ${fractionWords(k)} of this candle`;
 }
 
 interface Decision {
