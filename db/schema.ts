@@ -48,6 +48,18 @@ export const verificationTokens = pgTable('verification_tokens', {
   expires: timestamp('expires', { mode: 'date' }).notNull(),
 }, (t) => [primaryKey({ columns: [t.identifier, t.token] })]);
 
+// A sign-up waits here until the owner of the address opens the link mailed to it; only then is
+// the account created. Each row carries its own password hash, so a later sign-up for the same
+// address (by anyone) never changes what an earlier link creates.
+export const pendingSignUps = pgTable('pending_sign_ups', {
+  tokenHash: text('token_hash').primaryKey(),
+  email: text('email').notNull(),
+  name: text('name').notNull(),
+  passwordHash: text('password_hash').notNull(),
+  expiresAt: timestamp('expires_at', { mode: 'date', withTimezone: true }).notNull(),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('pending_sign_ups_email_idx').on(t.email)]);
+
 export const clubSettings = pgTable('club_settings', {
   id: integer('id').primaryKey().default(1),
   clubName: text('club_name').notNull().default('Our bonsai club'),

@@ -3,8 +3,7 @@ import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { users, type Role } from '@/db/schema';
 import { AppError } from '@/lib/errors';
-import { hashPassword, verifyPassword } from '@/lib/auth/password';
-import type { SignUpInput } from '@/lib/validation/auth';
+import { verifyPassword } from '@/lib/auth/password';
 import type { SessionUser } from '@/lib/auth/session';
 import { assertRole } from '@/lib/auth/roles';
 
@@ -29,18 +28,6 @@ const dtoColumns = {
 };
 
 const toDto = (r: { createdAt: Date } & Omit<UserDto, 'createdAt'>): UserDto => ({ ...r, createdAt: r.createdAt.toISOString() });
-
-export async function createMember(input: SignUpInput): Promise<UserDto> {
-  const db = await getDb();
-  const passwordHash = await hashPassword(input.password);
-  const rows = await db
-    .insert(users)
-    .values({ name: input.name, email: input.email, passwordHash, role: 'member' })
-    .onConflictDoNothing({ target: users.email })
-    .returning(dtoColumns);
-  if (!rows[0]) throw new AppError('conflict:email', 'An account with this e-mail already exists. Sign in instead.', { email: ['Already registered'] });
-  return toDto(rows[0]);
-}
 
 /** Check a password sign-in. Returns null for any failure, without saying which part was wrong. */
 export async function verifyCredentials(email: string, password: string) {

@@ -13,7 +13,7 @@ const SPECIES = 'pinus-thunbergii';
 
 const memberPages = ['/', '/species', `/species/${SPECIES}`, '/ask', '/answers', `/answers/${ANSWER}`, '/trees', '/trees/new', `/trees/${TREE}`, `/trees/${TREE}/edit`, '/notes', `/notes/${NOTE}`, '/profile'];
 const roles: { role: string; email: string | null; pages: string[] }[] = [
-  { role: 'visitor', email: null, pages: ['/', '/sign-in', '/sign-up', '/verify', '/unsubscribe', '/species', `/species/${SPECIES}`] },
+  { role: 'visitor', email: null, pages: ['/', '/sign-in', '/sign-up', '/verify', '/unsubscribe', '/sign-up/confirm?token=not-a-real-confirmation-token', '/species', `/species/${SPECIES}`] },
   { role: 'member', email: 'member@candlewise.test', pages: [...memberPages, '/admin'] },
   { role: 'editor', email: 'editor@candlewise.test', pages: ['/species', `/species/${SPECIES}`, `/species/${SPECIES}/edit`, `/species/${SPECIES}/history`, '/species/new', '/species/import'] },
   { role: 'librarian', email: 'librarian@candlewise.test', pages: ['/notes', `/notes/${NOTE}`, `/notes/${NOTE}/edit`, '/notes/new'] },

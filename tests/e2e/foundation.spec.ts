@@ -14,15 +14,47 @@ test('home page offers the two doors, on a desktop and at 360 px', async ({ page
   await page.screenshot({ path: screenshotPath('home-360'), fullPage: true });
 });
 
-test('a new grower signs up and lands signed in as a member', async ({ page }) => {
+test('a new grower signs up, opens the mailed link, and signs in as a member', async ({ page, browser }) => {
+  const email = `juniper-${Date.now()}@candlewise.test`;
   await page.goto('/sign-up');
   await page.getByLabel('Your name').fill('Juniper Lake');
-  await page.getByLabel('E-mail').fill(`juniper-${Date.now()}@candlewise.test`);
+  await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill('password123');
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByText('That password is on every list of common passwords')).toBeVisible();
   await page.getByLabel('Password').fill('willow-by-the-weir');
   await page.getByRole('button', { name: 'Create account' }).click();
+  const sent = page.getByTestId('sign-up-sent');
+  await expect(sent).toContainText('Check your e-mail');
+  await expect(sent).toContainText(email);
+  await expect(sent).toBeFocused();
+  await page.setViewportSize({ width: 360, height: 740 });
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+  await page.screenshot({ path: screenshotPath('sign-up-sent-360') });
+  await page.setViewportSize({ width: 1280, height: 900 });
+
+  // The link, read from the club's outbox as the administrator.
+  const adminCtx = await browser.newContext();
+  const admin = await adminCtx.newPage();
+  await new SignInPage(admin).withPassword('admin@candlewise.test');
+  await admin.goto('/admin/outbox');
+  const message = admin.getByTestId('outbox-message').filter({ hasText: email }).filter({ hasText: 'Confirm your Candlewise account' });
+  await expect(async () => {
+    await admin.reload();
+    await expect(message).toHaveCount(1, { timeout: 1000 });
+  }).toPass({ timeout: 15_000 });
+  const text = (await message.getByTestId('outbox-text').textContent()) ?? '';
+  const link = /https?:\/\/\S+\/sign-up\/confirm\?token=[A-Za-z0-9_-]+/.exec(text)?.[0];
+  expect(link).toBeTruthy();
+  await adminCtx.close();
+
+  await page.goto(new URL(link!).pathname + new URL(link!).search);
+  await expect(page.getByRole('heading', { level: 1 })).toHaveText('Confirm your account');
+  await page.getByRole('button', { name: 'Create my account' }).click();
+  await expect(page.getByTestId('account-ready')).toBeVisible();
+  await expect(page.getByTestId('password-form').getByLabel('E-mail')).toHaveValue(email);
+  await page.getByTestId('password-form').getByLabel('Password').fill('willow-by-the-weir');
+  await page.getByTestId('password-form').getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByTestId('current-role')).toHaveText('Member');
   await expect(page.getByTestId('main-nav').getByRole('link', { name: 'Admin' })).toHaveCount(0);
 });

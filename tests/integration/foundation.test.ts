@@ -1,5 +1,5 @@
 import { describe, expect, inject, it } from 'vitest';
-import { Client, signedIn } from '../support/http-client';
+import { Client, confirmToken, mailsTo, signedIn, signUp, waitForMail } from '../support/http-client';
 
 const base = inject('baseUrl');
 
@@ -47,18 +47,73 @@ describe('sign-in with password', () => {
 });
 
 describe('sign-up', () => {
-  it('creates a member, refuses a common password and a duplicate e-mail', async () => {
+  it('refuses a common password, then makes the account only when the mailed link is opened', async () => {
     const c = new Client(base);
     const weak = await c.json('/api/users', 'POST', { name: 'Ivy', email: 'ivy@candlewise.test', password: 'password123' });
     expect(weak.status).toBe(422);
     expect(weak.body.error.fields.password).toBeDefined();
     const ok = await c.json('/api/users', 'POST', { name: 'Ivy', email: 'IVY@candlewise.test', password: 'a-long-riverside-phrase' });
-    expect(ok.status).toBe(201);
-    expect(ok.body.user.role).toBe('member');
-    expect(ok.body.user.passwordHash).toBeUndefined();
-    const again = await c.json('/api/users', 'POST', { name: 'Ivy', email: 'ivy@candlewise.test', password: 'a-long-riverside-phrase' });
-    expect(again.status).toBe(409);
+    expect(ok.status).toBe(202);
+    expect(ok.body).toEqual({ status: 'pending', email: 'ivy@candlewise.test', message: expect.stringContaining('ivy@candlewise.test') });
+    // No account yet: the password does not sign in until the owner of the address confirms.
+    expect((await c.signIn('ivy@candlewise.test', 'a-long-riverside-phrase')).ok).toBe(false);
+    const mail = await waitForMail(base, 'ivy@candlewise.test', /^Confirm your Candlewise account$/);
+    const token = confirmToken(mail);
+    const confirmed = await c.json('/api/users/confirm', 'POST', { token });
+    expect(confirmed.status).toBe(200);
+    expect(confirmed.body).toEqual({ email: 'ivy@candlewise.test', created: true });
+    // The link works once.
+    const again = await c.json('/api/users/confirm', 'POST', { token });
+    expect(again.status).toBe(404);
+    expect(again.body.error.code).toBe('not_found:sign-up');
     expect((await c.signIn('ivy@candlewise.test', 'a-long-riverside-phrase')).ok).toBe(true);
+    expect((await c.session()).user?.role).toBe('member');
+  });
+
+  it('answers a new address and one with an account alike, and tells the account owner by e-mail', async () => {
+    const fresh = `newcomer-${Date.now()}@candlewise.test`;
+    const taken = 'member2@candlewise.test';
+    const before = (await mailsTo(base, taken)).length;
+    const a = await new Client(base).json('/api/users', 'POST', { name: 'Rowan', email: fresh, password: 'moss-on-the-north-side' });
+    const b = await new Client(base).json('/api/users', 'POST', { name: 'Rowan', email: taken, password: 'moss-on-the-north-side' });
+    expect(a.status).toBe(202);
+    expect(b.status).toBe(a.status);
+    // The same words, but for the address itself.
+    expect(JSON.stringify(b.body).replaceAll(taken, 'X')).toBe(JSON.stringify(a.body).replaceAll(fresh, 'X'));
+    expect([...b.headers.keys()].sort()).toEqual([...a.headers.keys()].sort());
+    const notice = await waitForMail(base, taken, /^You already have a Candlewise account$/);
+    expect(notice.text).toContain(`/sign-in?email=${encodeURIComponent(taken)}`);
+    expect(notice.text).not.toMatch(/sign-up\/confirm/);
+    expect((await mailsTo(base, taken)).length).toBe(before + 1);
+    // The account and its password are untouched.
+    expect((await new Client(base).signIn(taken, 'moss-on-the-north-side')).ok).toBe(false);
+    expect((await new Client(base).signIn(taken)).ok).toBe(true);
+    await waitForMail(base, fresh, /^Confirm your Candlewise account$/);
+  });
+
+  it('keeps each link to its own password: a later sign-up for the address does not change an earlier link', async () => {
+    const email = `twice-${Date.now()}@candlewise.test`;
+    await new Client(base).json('/api/users', 'POST', { name: 'First', email, password: 'first-cedar-phrase' });
+    const first = confirmToken(await waitForMail(base, email, /^Confirm/));
+    await new Client(base).json('/api/users', 'POST', { name: 'Second', email, password: 'second-cedar-phrase' });
+    const deadline = Date.now() + 10_000;
+    let second = first;
+    while (second === first && Date.now() < deadline) {
+      second = confirmToken((await mailsTo(base, email)).find((m) => /^Confirm/.test(m.subject))!);
+      if (second === first) await new Promise((r) => setTimeout(r, 150));
+    }
+    expect(second).not.toBe(first);
+    expect((await new Client(base).json('/api/users/confirm', 'POST', { token: first })).status).toBe(200);
+    // Confirming one ends every other link of the address.
+    expect((await new Client(base).json('/api/users/confirm', 'POST', { token: second })).status).toBe(404);
+    expect((await new Client(base).signIn(email, 'first-cedar-phrase')).ok).toBe(true);
+    expect((await new Client(base).signIn(email, 'second-cedar-phrase')).ok).toBe(false);
+  });
+
+  it('refuses a confirmation without a token with 422 naming the field', async () => {
+    const r = await new Client(base).json('/api/users/confirm', 'POST', {});
+    expect(r.status).toBe(422);
+    expect(r.body.error.fields.token).toBeDefined();
   });
 
   it('rejects malformed JSON with 400 and a non-JSON body with 415', async () => {
@@ -96,10 +151,7 @@ describe('roles', () => {
   it('a role change and a disable take effect on the next request', async () => {
     const admin = await signedIn(base, 'admin@candlewise.test');
     const email = `promote-${Date.now()}@candlewise.test`;
-    await new Client(base).json('/api/users', 'POST', { name: 'Promoted', email, password: 'river-stones-and-moss' });
-    const user = new Client(base);
-    expect((await user.signIn(email, 'river-stones-and-moss')).ok).toBe(true);
-    const id = (await user.session()).user!.id;
+    const { id, client: user } = await signUp(base, { name: 'Promoted', email, password: 'river-stones-and-moss' });
     expect((await user.json('/api/users', 'GET')).status).toBe(403);
 
     expect((await admin.json(`/api/users/${id}`, 'PATCH', { role: 'admin' })).status).toBe(200);

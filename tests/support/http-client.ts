@@ -84,3 +84,58 @@ export async function signedIn(base: string, email: string) {
   if (!r.ok) throw new Error(`could not sign in ${email}: ${r.status} ${r.url}`);
   return c;
 }
+
+export interface SentMail {
+  to: string[];
+  subject: string;
+  text: string | null;
+}
+
+const admins = new Map<string, Promise<Client>>();
+
+/** The mails sent to `email`, newest first, read from the outbox as the demo administrator. */
+export async function mailsTo(base: string, email: string): Promise<SentMail[]> {
+  let admin = admins.get(base);
+  if (!admin) {
+    admin = signedIn(base, 'admin@candlewise.test');
+    admins.set(base, admin);
+  }
+  const r = await (await admin).json<{ items: SentMail[] }>('/api/outbox?limit=200', 'GET');
+  if (r.status !== 200) throw new Error(`outbox: ${r.status}`);
+  return r.body.items.filter((m) => m.to.includes(email.toLowerCase()));
+}
+
+/** Wait (up to `ms`) for a mail to `email` whose subject matches; sends are queued after the response. */
+export async function waitForMail(base: string, email: string, subject: RegExp, ms = 10_000): Promise<SentMail> {
+  const until = Date.now() + ms;
+  for (;;) {
+    const hit = (await mailsTo(base, email)).find((m) => subject.test(m.subject));
+    if (hit) return hit;
+    if (Date.now() > until) throw new Error(`no mail "${subject}" to ${email} within ${ms} ms`);
+    await new Promise((r) => setTimeout(r, 150));
+  }
+}
+
+/** The confirmation token in a sign-up mail. */
+export function confirmToken(mail: SentMail): string {
+  const m = /\/sign-up\/confirm\?token=([A-Za-z0-9_-]+)/.exec(mail.text ?? '');
+  if (!m) throw new Error(`no confirmation link in "${mail.subject}"`);
+  return m[1];
+}
+
+/**
+ * Sign up the way a new member does: the form (202), then the link from the e-mail. Returns the
+ * new account's id, read from a first sign-in.
+ */
+export async function signUp(base: string, input: { name: string; email: string; password: string }, headers: Record<string, string> = {}) {
+  const r = await new Client(base).json('/api/users', 'POST', input, headers);
+  if (r.status !== 202) throw new Error(`sign-up failed: ${r.status} ${JSON.stringify(r.body)}`);
+  const token = confirmToken(await waitForMail(base, input.email, /^Confirm your Candlewise account$/));
+  const c = await new Client(base).json('/api/users/confirm', 'POST', { token });
+  if (c.status !== 200 || !c.body.created) throw new Error(`confirmation failed: ${c.status} ${JSON.stringify(c.body)}`);
+  const client = new Client(base);
+  if (!(await client.signIn(input.email, input.password)).ok) throw new Error(`sign-in of ${input.email} failed`);
+  const id = (await client.session()).user?.id;
+  if (!id) throw new Error(`no session for ${input.email}`);
+  return { id, client };
+}

@@ -2,21 +2,27 @@ import { NextResponse } from 'next/server';
 import { z } from 'zod';
 import { parseJson, parseQuery, route } from '@/lib/http/route';
 import { signUpSchema } from '@/lib/validation/auth';
-import { createMember, listUsers } from '@/lib/data/users';
+import { listUsers } from '@/lib/data/users';
+import { queueSignUp } from '@/lib/data/sign-ups';
 import { requireUser } from '@/lib/auth/session';
 import { clientIp, takeToken } from '@/lib/auth/rate-limit';
 import { AppError } from '@/lib/errors';
 import { env } from '@/lib/env';
 
-// Sign-up: public; always creates a member.
+// Sign-up: public. The answer is 202 and the same words for a new address and one that has an
+// account, sent before the address is looked up; the owner of the address learns by e-mail
+// what follows (a link that creates the account, or a note that they have one already).
 export const POST = route(async (req) => {
-  // A handful of accounts per client and hour: enough for a family on one connection.
+  // A handful of sign-ups per client and hour: enough for a family on one connection.
   if (!takeToken(`signup-ip:${clientIp(req.headers)}`, env.SIGNUPS_PER_CLIENT_PER_HOUR, 60 * 60_000)) {
-    throw new AppError('rate_limited:sign-up', 'Too many new accounts from here. Try again in an hour.');
+    throw new AppError('rate_limited:sign-up', 'Too many sign-ups from here. Try again in an hour.');
   }
   const input = await parseJson(req, signUpSchema);
-  const user = await createMember(input);
-  return NextResponse.json({ user }, { status: 201 });
+  queueSignUp(input);
+  return NextResponse.json(
+    { status: 'pending', email: input.email, message: `Check your e-mail: we sent the next step to ${input.email}.` },
+    { status: 202 },
+  );
 });
 
 const listQuery = z.object({

@@ -1,4 +1,4 @@
-import { Client, DEMO_PASSWORD, signedIn } from '../../support/http-client';
+import { Client, DEMO_PASSWORD, signedIn, signUp } from '../../support/http-client';
 
 // Shared helpers of the security suite: one signed-in client per demo role, and throwaway
 // accounts for requests that change or remove something.
@@ -72,13 +72,8 @@ export class Fixtures {
   async newMember(prefix = 'sec'): Promise<Account> {
     const email = `${unique(prefix)}@candlewise.test`;
     const password = 'riverside-moss-and-stone';
-    const anon = new Client(this.base);
-    const r = await anon.json('/api/users', 'POST', { name: 'Security Test', email, password });
-    if (r.status !== 201) throw new Error(`sign-up failed: ${r.status} ${JSON.stringify(r.body)}`);
-    const client = new Client(this.base);
-    const s = await client.signIn(email, password);
-    if (!s.ok) throw new Error(`sign-in of ${email} failed`);
-    return { id: r.body.user.id, email, password, client };
+    const { id, client } = await signUp(this.base, { name: 'Security Test', email, password });
+    return { id, email, password, client };
   }
 
   async userId(actor: Exclude<Actor, 'anonymous'>): Promise<string> {

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startApp, type RunningApp } from '../../support/app-server';
-import { Client, DEMO_PASSWORD } from '../../support/http-client';
+import { Client, DEMO_PASSWORD, signUp } from '../../support/http-client';
 
 // The sign-in lockout holds however the credentials arrive: a form body, a JSON body (next-auth
 // accepts both), an extra path segment after callback/credentials (next-auth routes on the first
@@ -35,8 +35,7 @@ async function attempt(c: Client, opts: { email: string; password: string; shape
 async function newAccount(prefix: string) {
   const email = `${prefix}-${Date.now().toString(36)}@candlewise.test`;
   const password = 'riverside-moss-and-stone';
-  const r = await new Client(app.url).json('/api/users', 'POST', { name: 'Lockout Test', email, password });
-  expect(r.status).toBe(201);
+  await signUp(app.url, { name: 'Lockout Test', email, password });
   return { email, password };
 }
 

@@ -49,9 +49,16 @@ export const routeMatrix: RouteRow[] = [
   { route: 'GET /api/users', file: 'app/api/users/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/users?sort=email' }), expect: atLeast('admin', 200) },
   {
     route: 'POST /api/users', file: 'app/api/users/route.ts', method: 'POST', kind: 'api', body: 'json',
-    // Sign-up is public: anyone may create a member account.
+    // Sign-up is public: anyone may ask for a member account (202; the account comes with the mailed link).
     request: () => ({ path: '/api/users', json: { name: 'New Grower', email: `${unique('signup')}@candlewise.test`, password: 'pine-bark-and-river-sand' } }),
-    expect: every(201),
+    expect: every(202),
+    fuzz: { as: 'anonymous' },
+  },
+  {
+    route: 'POST /api/users/confirm', file: 'app/api/users/confirm/route.ts', method: 'POST', kind: 'api', body: 'json',
+    // Public: the token from the mailed link is the proof. An unknown token is a 404.
+    request: () => ({ path: '/api/users/confirm', json: { token: 'not-a-real-confirmation-token' } }),
+    expect: every(404),
     fuzz: { as: 'anonymous' },
   },
   {
@@ -99,6 +106,7 @@ export const routeMatrix: RouteRow[] = [
   { route: 'GET /', file: 'app/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/' }), expect: every(200) },
   { route: 'GET /sign-in', file: 'app/(auth)/sign-in/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/sign-in' }), expect: every(200) },
   { route: 'GET /sign-up', file: 'app/(auth)/sign-up/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/sign-up' }), expect: every(200) },
+  { route: 'GET /sign-up/confirm', file: 'app/(auth)/sign-up/confirm/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/sign-up/confirm?token=not-a-real-confirmation-token' }), expect: every(200) },
   { route: 'GET /verify', file: 'app/(auth)/verify/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/verify' }), expect: every(200) },
   { route: 'GET /profile', file: 'app/(club)/profile/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/profile' }), expect: pageSignedIn },
   { route: 'GET /admin', file: 'app/(club)/admin/page.tsx', method: 'GET', kind: 'page', body: 'none', request: () => ({ path: '/admin' }), expect: pageAtLeast('admin') },

@@ -9,7 +9,7 @@ const messages: Record<string, string> = {
   RateLimited: 'Too many attempts. Wait a minute and try again.',
 };
 
-export function SignInForms({ callbackUrl }: { callbackUrl: string }) {
+export function SignInForms({ callbackUrl, email = '' }: { callbackUrl: string; email?: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
@@ -49,7 +49,7 @@ export function SignInForms({ callbackUrl }: { callbackUrl: string }) {
         <h2 id="pw-heading" className="text-xl">With your password</h2>
         <div>
           <label htmlFor="email" className="field-label">E-mail</label>
-          <input id="email" name="email" type="email" autoComplete="email" required className="field-input" />
+          <input id="email" name="email" type="email" autoComplete="email" required className="field-input" defaultValue={email} />
         </div>
         <div>
           <label htmlFor="password" className="field-label">Password</label>
@@ -63,7 +63,7 @@ export function SignInForms({ callbackUrl }: { callbackUrl: string }) {
         <p className="text-sm text-stone-700">We send a link that signs you in once, within 15 minutes.</p>
         <div>
           <label htmlFor="link-email" className="field-label">E-mail</label>
-          <input id="link-email" name="email" type="email" autoComplete="email" required className="field-input" />
+          <input id="link-email" name="email" type="email" autoComplete="email" required className="field-input" defaultValue={email} />
         </div>
         <div role="status" aria-live="polite">
           {linkState === 'sent' ? <p className="text-moss-800">If that address belongs to an account, the link is on its way. Check your inbox.</p> : null}

@@ -1,20 +1,24 @@
 'use client';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { signIn } from 'next-auth/react';
-import { useRouter } from 'next/navigation';
+import { useEffect, useRef, useState } from 'react';
 import { signUpSchema, type SignUpInput } from '@/lib/validation/auth';
 import { ApiError, sendJson } from '@/components/fetcher';
 
 export function SignUpForm() {
-  const router = useRouter();
+  const [sentTo, setSentTo] = useState<string | null>(null);
+  const noticeRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (sentTo) noticeRef.current?.focus();
+  }, [sentTo]);
   const { register, handleSubmit, setError, formState: { errors, isSubmitting } } = useForm<SignUpInput>({
     resolver: zodResolver(signUpSchema),
   });
 
   const onSubmit = handleSubmit(async (values) => {
     try {
-      await sendJson('/api/users', 'POST', values);
+      const res = await sendJson<{ email: string }>('/api/users', 'POST', values);
+      setSentTo(res.email);
     } catch (e) {
       if (e instanceof ApiError && e.body.fields) {
         for (const [field, msgs] of Object.entries(e.body.fields)) {
@@ -25,10 +29,18 @@ export function SignUpForm() {
       }
       return;
     }
-    const res = await signIn('credentials', { email: values.email, password: values.password, redirect: false });
-    router.push(res?.ok ? '/' : '/sign-in');
-    router.refresh();
   });
+
+  if (sentTo) {
+    // The same words whether or not the address already has an account: its owner learns which by e-mail.
+    return (
+      <div ref={noticeRef} tabIndex={-1} role="status" className="card space-y-3" data-testid="sign-up-sent">
+        <h2 className="text-xl">Check your e-mail</h2>
+        <p>We sent a message to <strong className="break-all">{sentTo}</strong> with the next step. Open the link in it to finish; it works for 24 hours.</p>
+        <p className="text-sm text-stone-700">Nothing there after a few minutes? Look in the spam folder, or sign up again to get a new message.</p>
+      </div>
+    );
+  }
 
   return (
     <form onSubmit={onSubmit} className="card space-y-4" noValidate data-testid="sign-up-form">
