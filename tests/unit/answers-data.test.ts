@@ -1,14 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { eq } from 'drizzle-orm';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
-import { seed } from '@/db/seed';
-import { trees, users } from '@/db/schema';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { memoryDb } from '../support/memory-db';
+import { trees } from '@/db/schema';
 import { getAnswer, getAnswerPreview, listOwnAnswers, newAnswerId, phoneDiffers, rerunAnswer, saveAnswer, saveAnswerOnce, updateAnswer } from '@/lib/data/answers';
 import { getTreePrefill } from '@/lib/data/wizard';
 import type { SessionUser } from '@/lib/auth/session';
 
-let handle: DbHandle;
+const mem = memoryDb();
 let wren: SessionUser;
 let tamsin: SessionUser;
 
@@ -17,19 +14,10 @@ const body = {
   position: 'beyond-silhouette', health: 'average',
 } as const;
 
-async function user(email: string): Promise<SessionUser> {
-  const [u] = await handle.db.select({ id: users.id, name: users.name, email: users.email, role: users.role, tokenVersion: users.tokenVersion }).from(users).where(eq(users.email, email));
-  return { ...u, name: u.name ?? '' };
-}
-
 beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  await seed(handle.db);
-  wren = await user('member@candlewise.test');
-  tamsin = await user('member2@candlewise.test');
+  wren = await mem.user('member@candlewise.test');
+  tamsin = await mem.user('member2@candlewise.test');
 });
-afterAll(() => handle?.close());
 
 describe('answer ids', () => {
   it('are 12 url-safe characters and do not repeat', () => {
@@ -62,7 +50,7 @@ describe('answer previews for links', () => {
   });
 
   it('links an answer to the owner’s tree and pre-fills the wizard from it', async () => {
-    await handle.db.insert(trees).values({ id: 'tree-w1', ownerId: wren.id, name: 'Riverside Scots', speciesSlug: 'pinus-sylvestris', containerShape: 'oval', containerLengthCm: 40, containerWidthCm: 30, collectedFromWild: true, collectedOn: '2026-04-01' });
+    await mem.db.insert(trees).values({ id: 'tree-w1', ownerId: wren.id, name: 'Riverside Scots', speciesSlug: 'pinus-sylvestris', containerShape: 'oval', containerLengthCm: 40, containerWidthCm: 30, collectedFromWild: true, collectedOn: '2026-04-01' });
     expect(await getTreePrefill('tree-w1', tamsin)).toBeNull();
     expect(await getTreePrefill('tree-w1', wren, '2027-05-10')).toMatchObject({ speciesSlug: 'pinus-sylvestris', container: { shape: 'oval', lengthCm: 40, widthCm: 30 }, recentlyCollected: true });
     expect((await getTreePrefill('tree-w1', wren, '2029-05-10'))!.recentlyCollected).toBe(false);

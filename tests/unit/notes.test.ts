@@ -1,10 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { memoryDb } from '../support/memory-db';
 import { eq } from 'drizzle-orm';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
-import { seeders } from '@/db/seed';
-import { seedRecord } from '@/db/seed-record';
-import { answers, noteLinks, users } from '@/db/schema';
+import { answers, noteLinks } from '@/db/schema';
 import { createNote, deleteNote, getBacklinks, getNote, listNotes, updateNote } from '@/lib/data/notes';
 import { renderNoteBody, resolveNoteLinks, UNAVAILABLE_ANSWER, UNKNOWN_SPECIES } from '@/lib/data/note-render';
 import { searchLinkableAnswers } from '@/lib/data/linkable-answers';
@@ -13,7 +10,7 @@ import { noteSlugFor, formatMeetingDate } from '@/lib/validation/notes';
 import type { SessionUser } from '@/lib/auth/session';
 import { AppError } from '@/lib/errors';
 
-let handle: DbHandle;
+const mem = memoryDb({ record: false });
 let librarian: SessionUser;
 let member: SessionUser;
 let member2: SessionUser;
@@ -22,31 +19,21 @@ const SHARED = 'sharedAns0001';
 const PRIVATE = 'privateAns001';
 const MISSING = 'missingAns001';
 
-async function userByEmail(email: string): Promise<SessionUser> {
-  const [u] = await handle.db.select({ id: users.id, name: users.name, email: users.email, role: users.role }).from(users).where(eq(users.email, email));
-  return { id: u.id, name: u.name ?? '', email: u.email, role: u.role, tokenVersion: 0 };
-}
-
 async function addAnswer(id: string, userId: string, visibility: 'private' | 'club', observedOn = '2027-05-10', action = 'pinch') {
-  await handle.db.insert(answers).values({
+  await mem.db.insert(answers).values({
     id, userId, speciesSlug: 'pinus-sylvestris', speciesRevision: 1, engineVersion: 'test', action, stage: 'refinement',
     season: 'spring', observedOn, input: {}, result: { speciesName: 'Scots pine' }, visibility,
   });
 }
 
 beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  // Users and species only: these tests make their own answers and notes.
-  for (const s of seeders.filter((x) => x !== seedRecord)) await s(handle.db);
-  librarian = await userByEmail('librarian@candlewise.test');
-  member = await userByEmail('member@candlewise.test');
-  member2 = await userByEmail('member2@candlewise.test');
+  librarian = await mem.user('librarian@candlewise.test');
+  member = await mem.user('member@candlewise.test');
+  member2 = await mem.user('member2@candlewise.test');
   await addAnswer(SHARED, member.id, 'club');
   await addAnswer(PRIVATE, member.id, 'private');
   await addAnswer('sharedAns0002', member2.id, 'club', '2027-08-02', 'prune');
 });
-afterAll(() => handle?.close());
 
 const rejectsWith = async (p: Promise<unknown>, status: number) => {
   const e = await p.then(() => null, (x) => x);
@@ -128,7 +115,7 @@ describe('notes and backlinks', () => {
       title: 'Pinching night', meetingDate: '2027-05-20', status: 'draft',
       body: `We looked at [this](/answers/${SHARED}) and [Scots](/species/pinus-sylvestris), twice: [again](/species/pinus-sylvestris).`,
     });
-    const rows = await handle.db.select({ t: noteLinks.targetType, id: noteLinks.targetId }).from(noteLinks).where(eq(noteLinks.noteId, n.id));
+    const rows = await mem.db.select({ t: noteLinks.targetType, id: noteLinks.targetId }).from(noteLinks).where(eq(noteLinks.noteId, n.id));
     expect(rows.sort((a, b) => a.t.localeCompare(b.t))).toEqual([{ t: 'answer', id: SHARED }, { t: 'species', id: 'pinus-sylvestris' }]);
     // A draft is not yet "discussed at a meeting".
     expect(await getBacklinks('answer', SHARED)).toEqual([]);

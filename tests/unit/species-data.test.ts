@@ -1,9 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { memoryDb } from '../support/memory-db';
 import { eq } from 'drizzle-orm';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
-import { seed } from '@/db/seed';
-import { species, users } from '@/db/schema';
+import { species } from '@/db/schema';
 import type { SessionUser } from '@/lib/auth/session';
 import { getSpeciesForViewer, getWizardSpecies, listSpeciesRevisions } from '@/lib/data/species';
 import { listSpecies } from '@/lib/data/species-list';
@@ -11,24 +9,15 @@ import { createSpecies, commitSpeciesImport, previewSpeciesImport, revertSpecies
 import { serializeSpeciesMarkdown } from '@/lib/species/content';
 import { speciesListQuerySchema, type SpeciesRecord } from '@/lib/validation/species';
 
-let handle: DbHandle;
+const mem = memoryDb();
 let editor: SessionUser;
 let member: SessionUser;
 const q = (o: Record<string, unknown> = {}) => speciesListQuerySchema.parse(o);
 
-async function user(email: string): Promise<SessionUser> {
-  const [u] = await handle.db.select().from(users).where(eq(users.email, email));
-  return { id: u.id, name: u.name ?? '', email: u.email, role: u.role, tokenVersion: u.tokenVersion };
-}
-
 beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  await seed(handle.db);
-  editor = await user('editor@candlewise.test');
-  member = await user('member@candlewise.test');
+  editor = await mem.user('editor@candlewise.test');
+  member = await mem.user('member@candlewise.test');
 });
-afterAll(() => handle?.close());
 
 describe('species list', () => {
   it('pages through every published species with a keyset cursor, no repeats', async () => {
@@ -91,13 +80,13 @@ describe('editorial workflow', () => {
     record.traits.vigour = { value: 'high', provenance: 'from-memory' };
     const published = await updateSpecies(editor, 'pinus-mugo', { record, body: pub.body, summary: 'publish', publish: true, baseRevision: 2 });
     expect(published).toMatchObject({ revision: 3, publishedRevision: 3 });
-    const [row] = await handle.db.select({ vigour: species.vigour }).from(species).where(eq(species.slug, 'pinus-mugo'));
+    const [row] = await mem.db.select({ vigour: species.vigour }).from(species).where(eq(species.slug, 'pinus-mugo'));
     expect(row.vigour).toBe('high');
     expect((await getWizardSpecies('pinus-mugo'))?.revision).toBe(3);
 
     const reverted = await revertSpecies(editor, 'pinus-mugo', { toRevision: 1, baseRevision: 3, summary: '', publish: true });
     expect(reverted.revision).toBe(4);
-    const [after] = await handle.db.select({ vigour: species.vigour }).from(species).where(eq(species.slug, 'pinus-mugo'));
+    const [after] = await mem.db.select({ vigour: species.vigour }).from(species).where(eq(species.slug, 'pinus-mugo'));
     expect(after.vigour).toBe('moderate');
     expect((await listSpeciesRevisions(editor, 'pinus-mugo'))[0]).toMatchObject({ revision: 4, summary: 'Reverted to revision 1', current: true });
   });

@@ -1,30 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { memoryDb } from '../support/memory-db';
 import { count, eq } from 'drizzle-orm';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
 import { seed } from '@/db/seed';
 import { species, speciesRevisions } from '@/db/schema';
 import { getWizardSpecies, listWizardSpeciesNames } from '@/lib/data/species';
 
-let handle: DbHandle;
-
-beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  await seed(handle.db);
-});
-afterAll(() => handle?.close());
+const mem = memoryDb();
 
 describe('species seeder and wizard reads', () => {
   it('is idempotent and leaves an existing slug alone', async () => {
-    const [before] = await handle.db.select({ n: count() }).from(speciesRevisions);
-    await handle.db.update(species).set({ botanicalName: 'Pinus sylvestris (edited)' }).where(eq(species.slug, 'pinus-sylvestris'));
-    await seed(handle.db);
-    const [after] = await handle.db.select({ n: count() }).from(speciesRevisions);
+    const [before] = await mem.db.select({ n: count() }).from(speciesRevisions);
+    await mem.db.update(species).set({ botanicalName: 'Pinus sylvestris (edited)' }).where(eq(species.slug, 'pinus-sylvestris'));
+    await seed(mem.db);
+    const [after] = await mem.db.select({ n: count() }).from(speciesRevisions);
     expect(after.n).toBe(before.n);
-    const [row] = await handle.db.select({ b: species.botanicalName }).from(species).where(eq(species.slug, 'pinus-sylvestris'));
+    const [row] = await mem.db.select({ b: species.botanicalName }).from(species).where(eq(species.slug, 'pinus-sylvestris'));
     expect(row.b).toBe('Pinus sylvestris (edited)');
-    await handle.db.update(species).set({ botanicalName: 'Pinus sylvestris' }).where(eq(species.slug, 'pinus-sylvestris'));
+    await mem.db.update(species).set({ botanicalName: 'Pinus sylvestris' }).where(eq(species.slug, 'pinus-sylvestris'));
   });
 
   it('gives the wizard the published traits', async () => {

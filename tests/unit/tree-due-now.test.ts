@@ -1,9 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { memoryDb } from '../support/memory-db';
 import { invalidateReads } from '@/lib/data/read-cache';
 import { eq } from 'drizzle-orm';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
-import { seed } from '@/db/seed';
 import { clubSettings } from '@/db/schema';
 import { dueNow } from '@/lib/wizard/due-now';
 import { getWizardSpecies } from '@/lib/data/species';
@@ -11,14 +9,7 @@ import { dueNowForTree, dueNowHeadlines, stageFor } from '@/lib/data/tree-due-no
 import { askParamsFor, isRecentlyCollected } from '@/lib/trees/describe';
 import type { TreeDto } from '@/lib/data/trees';
 
-let handle: DbHandle;
-
-beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  await seed(handle.db);
-});
-afterAll(() => handle?.close());
+const mem = memoryDb();
 
 const tree = (over: Partial<TreeDto> = {}): TreeDto => ({
   id: 'tree-aaaaaaaaaaaa',
@@ -39,7 +30,7 @@ const tree = (over: Partial<TreeDto> = {}): TreeDto => ({
 });
 
 async function setHemisphere(h: 'north' | 'south') {
-  await handle.db.update(clubSettings).set({ hemisphere: h }).where(eq(clubSettings.id, 1));
+  await mem.db.update(clubSettings).set({ hemisphere: h }).where(eq(clubSettings.id, 1));
   // This writes past the data layer, so it tells the read cache itself.
   invalidateReads('settings');
 }

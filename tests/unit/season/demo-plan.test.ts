@@ -1,26 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { eq } from 'drizzle-orm';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
-import { seed } from '@/db/seed';
-import { users } from '@/db/schema';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { memoryDb } from '../../support/memory-db';
 import { listTrees } from '@/lib/data/trees';
 import { getTreePlan, thisWeek } from '@/lib/data/plan';
 import type { SessionUser } from '@/lib/auth/session';
 
 // The demo club, seeded for real: the demo member's Scots pine has its candle work in May
 // (club at 45.5°N, latitude model), and "This week" in mid-May lists it.
-let handle: DbHandle;
+const mem = memoryDb();
 let member: SessionUser;
 
 beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  await seed(handle.db);
-  const [u] = await handle.db.select().from(users).where(eq(users.email, 'member@candlewise.test'));
-  member = { id: u.id, name: u.name ?? '', email: u.email, role: u.role, tokenVersion: u.tokenVersion };
+  member = await mem.user('member@candlewise.test');
 });
-afterAll(() => handle?.close());
 
 describe('the demo member’s season', () => {
   it('the refinement Scots pine has candle work in May; the recovering collected mugo has none', async () => {

@@ -1,11 +1,10 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { memoryDb } from '../../support/memory-db';
 import type { AuthOptions } from 'next-auth';
 import { randomBytes } from 'node:crypto';
 // next-auth does not export its core; it is the very code the route handler runs.
 import { AuthHandler } from '../../../node_modules/next-auth/core/index.js';
-import { openDatabase, type DbHandle } from '@/db/open';
-import { setDbHandle } from '@/db/client';
-import { seed, DEMO_PASSWORD } from '@/db/seed';
+import { DEMO_PASSWORD } from '@/db/seed';
 
 // next-auth's own core, driven directly with our options and an in-memory database: the
 // cookies it sets (HttpOnly, SameSite, Secure behind https) and the e-mail link's lifetime.
@@ -14,13 +13,7 @@ vi.mock('@/lib/mail/templates', () => ({
   sendSignInLink: async (to: string, url: string) => void sent.push({ to, url }),
 }));
 
-let handle: DbHandle;
-beforeAll(async () => {
-  handle = await openDatabase({ pgliteDir: 'memory' });
-  setDbHandle(handle);
-  await seed(handle.db);
-});
-afterAll(async () => handle.close());
+memoryDb();
 afterEach(() => vi.useRealTimers());
 
 async function optionsFor(url: string): Promise<AuthOptions> {
