@@ -1,6 +1,9 @@
 import {
   boolean, date, index, integer, jsonb, pgTable, primaryKey, real, serial, text, timestamp, uniqueIndex,
 } from 'drizzle-orm/pg-core';
+import type { WizardInput, WizardResult } from '@/lib/wizard/types';
+import type { PhoneResult } from '@/lib/validation/offline';
+import type { SpeciesRecord } from '@/lib/validation/species';
 
 // Every table of Candlewise lives here so that migrations come from one place (drizzle-kit generate).
 
@@ -106,7 +109,9 @@ export const speciesRevisions = pgTable('species_revisions', {
   speciesId: integer('species_id').notNull().references(() => species.id, { onDelete: 'cascade' }),
   revision: integer('revision').notNull(),
   status: text('status').$type<'draft' | 'published'>().notNull(),
-  data: jsonb('data').$type<Record<string, unknown>>().notNull(),
+  // Written from a checked record; read back through speciesRecordSchema, since older revisions
+  // may predate a field.
+  data: jsonb('data').$type<SpeciesRecord>().notNull(),
   body: text('body').notNull().default(''),
   summary: text('summary').notNull().default(''),
   editorId: text('editor_id').references(() => users.id, { onDelete: 'set null' }),
@@ -141,8 +146,8 @@ export const answers = pgTable('answers', {
   stage: text('stage').notNull(),
   season: text('season').notNull(),
   observedOn: date('observed_on').notNull(),
-  input: jsonb('input').$type<Record<string, unknown>>().notNull(),
-  result: jsonb('result').$type<Record<string, unknown>>().notNull(),
+  input: jsonb('input').$type<WizardInput>().notNull(),
+  result: jsonb('result').$type<WizardResult>().notNull(),
   note: text('note').notNull().default(''),
   followUp: text('follow_up').notNull().default(''),
   visibility: text('visibility').$type<'private' | 'club'>().notNull().default('private'),
@@ -150,7 +155,7 @@ export const answers = pgTable('answers', {
   // The client's Idempotency-Key: a retried save (an offline queue replaying) finds its first answer.
   idempotencyKey: text('idempotency_key'),
   // What the phone worked out offline, when it differs from the server's re-evaluation.
-  phoneResult: jsonb('phone_result').$type<Record<string, unknown>>(),
+  phoneResult: jsonb('phone_result').$type<PhoneResult>(),
 }, (t) => [
   uniqueIndex('answers_user_idempotency_idx').on(t.userId, t.idempotencyKey),
   index('answers_user_created_idx').on(t.userId, t.createdAt.desc(), t.id.desc()),

@@ -30,7 +30,7 @@ export async function seedSpecies(db: Db, dir?: string) {
         speciesId: row.id,
         revision: 1,
         status: 'published',
-        data: record as unknown as Record<string, unknown>,
+        data: record,
         body,
         summary: 'Imported from the species library',
         editorId: null,

@@ -10,7 +10,7 @@ export function answerRowFromResult(input: WizardInput, result: WizardResult) {
     stage: result.stage,
     season: result.season,
     observedOn: result.date,
-    input: input as unknown as Record<string, unknown>,
-    result: result as unknown as Record<string, unknown>,
+    input,
+    result,
   };
 }

@@ -43,7 +43,7 @@ export interface AnswerDto {
   askerName: string;
   isOwner: boolean;
   /** What a phone worked out offline, kept only when the server's answer differs. */
-  phoneResult: WizardResult | null;
+  phoneResult: PhoneResult | null;
 }
 
 export interface AnswerListItem {
@@ -110,7 +110,7 @@ export async function saveAnswerOnce(
       visibility: visibility ?? 'private',
       createdAt: new Date(),
       idempotencyKey: key ?? null,
-      phoneResult: differs ? (phoneResult as Record<string, unknown>) : null,
+      phoneResult: differs ? phoneResult : null,
     })
     // Two copies of one save racing each other: the unique (user, key) index lets one in.
     .onConflictDoNothing()
@@ -142,7 +142,7 @@ async function answerByKey(userId: string, key: string): Promise<SavedAnswer | n
     .where(and(eq(answers.userId, userId), eq(answers.idempotencyKey, key)))
     .limit(1);
   if (!r) return null;
-  return { id: r.id, url: answerUrl(r.id), phoneResult: (r.phoneResult as PhoneResult | null) ?? null, ...(r.result as unknown as WizardResult) };
+  return { id: r.id, url: answerUrl(r.id), phoneResult: r.phoneResult ?? null, ...r.result };
 }
 
 function encodeCursor(createdAt: Date, id: string) {
@@ -204,7 +204,7 @@ async function listAnswers(
     .limit(limit + 1);
   const page = rows.slice(0, limit);
   const items = page.map((r) => {
-    const res = r.result as unknown as WizardResult;
+    const res = r.result;
     return {
       id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: res.speciesName ?? r.speciesSlug,
       action: r.action as Action, stage: r.stage, season: r.season, observedOn: r.observedOn, headline: res.headline ?? r.action,
@@ -232,14 +232,14 @@ export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto |
     .where(and(eq(answers.id, id), visibleTo(viewer)))
     .limit(1);
   if (!r) return null;
-  const result = r.result as unknown as WizardResult;
+  const result = r.result;
   return {
     id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: result.speciesName ?? r.speciesSlug,
     speciesRevision: r.speciesRevision, engineVersion: r.engineVersion, action: r.action as Action, stage: r.stage,
     season: r.season, observedOn: r.observedOn, treeId: r.userId === viewer.id ? r.treeId : null,
-    input: r.input as unknown as WizardInput, result, note: r.note, followUp: r.followUp, visibility: r.visibility,
+    input: r.input, result, note: r.note, followUp: r.followUp, visibility: r.visibility,
     createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName), isOwner: r.userId === viewer.id,
-    phoneResult: (r.phoneResult as unknown as WizardResult | null) ?? null,
+    phoneResult: r.phoneResult ?? null,
   };
 }
 

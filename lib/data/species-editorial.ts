@@ -55,7 +55,7 @@ async function writeRevision(
     speciesId: row.id,
     revision,
     status,
-    data: input.record as unknown as Record<string, unknown>,
+    data: input.record,
     body: input.body,
     summary: input.summary,
     editorId: actor.id,

@@ -14,6 +14,7 @@ import { openDatabase, type Db } from '../../db/open';
 import { setDbHandle } from '../../db/client';
 import { answers, species, users } from '../../db/schema';
 import { seed } from '../../db/seed';
+import type { WizardInput, WizardResult } from '../../lib/wizard/types';
 
 const CRASH_USER_ID = 'crash-writer-user';
 const migrationsFolder = path.resolve(__dirname, '../../db/migrations');
@@ -56,8 +57,9 @@ function answerRow(id: string) {
     stage: 'refinement',
     season: 'spring',
     observedOn: '2026-05-01',
-    input: { candleLengthCm: 6, note: 'x'.repeat(200) },
-    result: { action: 'pinch' },
+    // Not a real evaluation: rows of a known size for the crash checks (jsonb of any shape).
+    input: { candleLengthCm: 6, note: 'x'.repeat(200) } as unknown as WizardInput,
+    result: { action: 'pinch' } as unknown as WizardResult,
   };
 }
 

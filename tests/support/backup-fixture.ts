@@ -8,6 +8,10 @@ import {
 // Rows in every table, with the values a dump most easily gets wrong: quotes, backslashes,
 // newlines, non-Latin text, emoji, JSON with nesting and escapes, NULLs, fractional floats,
 // timestamps with milliseconds, dates, booleans, and serial ids with gaps.
+// jsonb of any shape, as an older version of the app might have written it: the columns are typed
+// for what the app writes now, and a dump must carry whatever is there.
+const anyJson = (value: unknown) => value as never;
+
 const awkward = `O'Brien "quoted" back\\slash\nnew line\ttab — ñ 松 🌲 $$ ; -- not a comment`;
 
 export async function fillAwkwardRows(db: Db) {
@@ -24,8 +28,8 @@ export async function fillAwkwardRows(db: Db) {
     })
     .returning({ id: species.id });
   await db.insert(speciesRevisions).values([
-    { speciesId: sp.id, revision: 1, status: 'draft', data: { nested: { a: [1, 2.5, null, true] }, s: awkward }, body: awkward, editorId: 'u-awkward-2' },
-    { speciesId: sp.id, revision: 2, status: 'published', data: { unicode: '\u00e9\u4e2d', empty: {} }, body: '# Heading\n\n|a|b|\n|-|-|', summary: 'two' },
+    { speciesId: sp.id, revision: 1, status: 'draft', data: anyJson({ nested: { a: [1, 2.5, null, true] }, s: awkward }), body: awkward, editorId: 'u-awkward-2' },
+    { speciesId: sp.id, revision: 2, status: 'published', data: anyJson({ unicode: '\u00e9\u4e2d', empty: {} }), body: '# Heading\n\n|a|b|\n|-|-|', summary: 'two' },
   ]);
   await db.insert(trees).values({
     id: 'tree-awkward', ownerId: 'u-awkward-1', name: awkward, speciesSlug: 'pinus-awkwardii', containerShape: 'oval',
@@ -41,13 +45,13 @@ export async function fillAwkwardRows(db: Db) {
     {
       id: 'ans-awkward-1', userId: 'u-awkward-1', treeId: 'tree-awkward', speciesSlug: 'pinus-awkwardii', speciesRevision: 2,
       engineVersion: '1.0.0', action: 'decandle', stage: 'refinement', season: 'summer', observedOn: '2026-06-21',
-      input: { quote: "it's", backslash: 'a\\b', list: [{ x: 1 }] }, result: { reasons: [awkward] }, note: awkward,
+      input: anyJson({ quote: "it's", backslash: 'a\\b', list: [{ x: 1 }] }), result: anyJson({ reasons: [awkward] }), note: awkward,
       visibility: 'club', createdAt: new Date('2026-06-21T10:11:12.345Z'),
     },
     {
       id: 'ans-awkward-2', userId: 'u-awkward-1', treeId: null, speciesSlug: 'pinus-awkwardii', speciesRevision: 1,
       engineVersion: '1.0.0', action: 'wait', stage: 'development', season: 'winter', observedOn: '2025-12-31',
-      input: {}, result: {}, createdAt: new Date('2025-12-31T23:59:59.999Z'),
+      input: anyJson({}), result: anyJson({}), createdAt: new Date('2025-12-31T23:59:59.999Z'),
     },
   ]);
   const [note] = await db

@@ -8,6 +8,7 @@ import { searchLinkableAnswers } from '@/lib/data/linkable-answers';
 import { extractInternalLinks, parseInternalLink } from '@/lib/markdown/render';
 import { noteSlugFor, formatMeetingDate } from '@/lib/validation/notes';
 import type { SessionUser } from '@/lib/auth/session';
+import type { WizardInput, WizardResult } from '@/lib/wizard/types';
 import { AppError } from '@/lib/errors';
 
 const mem = memoryDb({ record: false });
@@ -22,7 +23,7 @@ const MISSING = 'missingAns001';
 async function addAnswer(id: string, userId: string, visibility: 'private' | 'club', observedOn = '2027-05-10', action = 'pinch') {
   await mem.db.insert(answers).values({
     id, userId, speciesSlug: 'pinus-sylvestris', speciesRevision: 1, engineVersion: 'test', action, stage: 'refinement',
-    season: 'spring', observedOn, input: {}, result: { speciesName: 'Scots pine' }, visibility,
+    season: 'spring', observedOn, input: { species: 'pinus-sylvestris' } as WizardInput, result: { speciesName: 'Scots pine' } as WizardResult, visibility,
   });
 }
 

@@ -31,7 +31,7 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
   const a = await getAnswer(id, user);
   if (!a) notFound();
   const photos = await listPhotos(user, { answerId: a.id });
-  const input = a.input as unknown as Record<string, unknown>;
+  const input: Record<string, unknown> = { ...a.input };
   const c = a.input.container;
   return (
     <div className="mx-auto max-w-xl space-y-5">
