@@ -2,7 +2,7 @@ import { sql } from 'drizzle-orm';
 import type { Db } from '@/db/open';
 import {
   answers, digestSends, noteLinks, notes, outboxMessages, photos, species, speciesRevisions, temperatureDays, temperatureRecords, treeObservations, trees,
-  users, verificationTokens,
+  pendingSignUps, users, verificationTokens,
 } from '@/db/schema';
 
 // Rows in every table, with the values a dump most easily gets wrong: quotes, backslashes,
@@ -73,4 +73,5 @@ export async function fillAwkwardRows(db: Db) {
   }
   await db.delete(outboxMessages).where(sql`${outboxMessages.id} = (select min(id) from outbox_messages)`);
   await db.insert(verificationTokens).values({ identifier: 'awkward1@candlewise.test', token: 'hashed-token', expires: new Date('2026-12-02T06:00:00.000Z') });
+  await db.insert(pendingSignUps).values({ tokenHash: 'a'.repeat(64), email: 'awkward3@candlewise.test', name: awkward, passwordHash: '$2b$10$notarealhashnotarealhashnotarealhashnotarealhashnot', expiresAt: new Date('2026-12-03T06:00:00.123Z') });
 }
