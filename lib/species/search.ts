@@ -106,6 +106,8 @@ export interface SpeciesSearchIndex<T extends SearchableSpecies> {
   postings: Posting[][];
   byWord: Map<string, number>;
   byTrigram: Map<string, number[]>;
+  /** Scratch space for one search at a time (searches are synchronous), reused to spare the collector. */
+  scratch: { shared: Int32Array; cost: Int8Array; met: Int32Array; genus: Uint8Array; seen: Uint8Array };
 }
 
 export function buildSpeciesIndex<T extends SearchableSpecies>(items: T[]): SpeciesSearchIndex<T> {
@@ -134,7 +136,14 @@ export function buildSpeciesIndex<T extends SearchableSpecies>(items: T[]): Spec
       else byTrigram.set(t, [i]);
     }
   });
-  return { items, names, vocab, postings, byWord, byTrigram };
+  const scratch = {
+    shared: new Int32Array(vocab.length),
+    cost: new Int8Array(names.length * MAX_QUERY_WORDS),
+    met: new Int32Array(names.length),
+    genus: new Uint8Array(names.length),
+    seen: new Uint8Array(names.length),
+  };
+  return { items, names, vocab, postings, byWord, byTrigram, scratch };
 }
 
 // How a query word met a name word; lower is better.
@@ -161,9 +170,14 @@ function wordMatches(index: SpeciesSearchIndex<SearchableSpecies>, q: string): M
   // A word within `max` edits keeps all but 3 × max of the query's trigrams (a prefix all but one more).
   const grams = trigrams(q);
   const need = Math.max(1, grams.length - 1 - 3 * max);
-  const shared = new Map<number, number>();
-  for (const g of grams) for (const w of index.byTrigram.get(g) ?? []) shared.set(w, (shared.get(w) ?? 0) + 1);
-  for (const [w, count] of shared) {
+  const shared = index.scratch.shared;
+  const touched: number[] = [];
+  for (const g of grams) {
+    for (const w of index.byTrigram.get(g) ?? []) if (shared[w]++ === 0) touched.push(w);
+  }
+  for (const w of touched) {
+    const count = shared[w];
+    shared[w] = 0;
     if (count < need || out.has(w)) continue;
     const word = index.vocab[w];
     const whole = editDistance(q, word, max);
@@ -207,31 +221,44 @@ export function searchSpecies<T extends SearchableSpecies>(items: T[], q: string
       .map((item) => ({ item, score: 0, match: { text: item.botanicalName, kind: 'botanical' as const, primary: true, misspelt: false } }))
       .sort(compareHits);
   }
-  // Per name: for each query word, its best cost; and which name words were met.
-  const perName = new Map<number, { costs: number[]; met: Set<number>; genus: boolean }>();
+  // Per name: for each query word, its best cost (-1 none); which name words were met (a bit mask);
+  // whether a botanical name's genus was. Kept in the index's scratch arrays, cleared after use.
+  const { cost, met, genus, seen } = index.scratch;
+  const W = words.length;
+  const touched: number[] = [];
   words.forEach((word, qi) => {
-    for (const [w, cost] of wordMatches(index as SpeciesSearchIndex<SearchableSpecies>, word)) {
+    for (const [w, c] of wordMatches(index as SpeciesSearchIndex<SearchableSpecies>, word)) {
       for (const { name, pos } of index.postings[w]) {
-        let s = perName.get(name);
-        if (!s) perName.set(name, (s = { costs: new Array<number>(words.length).fill(-1), met: new Set(), genus: false }));
-        if (s.costs[qi] === -1 || cost < s.costs[qi]) s.costs[qi] = cost;
-        s.met.add(pos);
-        if (pos === 0 && index.names[name].kind === 'botanical' && cost <= PREFIX) s.genus = true;
+        if (!seen[name]) {
+          seen[name] = 1;
+          touched.push(name);
+          cost.fill(-1, name * W, name * W + W);
+        }
+        const at = name * W + qi;
+        if (cost[at] === -1 || c < cost[at]) cost[at] = c;
+        if (pos < 31) met[name] |= 1 << pos;
+        if (pos === 0 && c <= PREFIX && index.names[name].kind === 'botanical') genus[name] = 1;
       }
     }
   });
   const best = new Map<number, SearchHit<T>>();
-  for (const [n, s] of perName) {
+  for (const n of touched) {
     const entry = index.names[n];
     let missing = 0;
     let edits = 0;
     let partial = 0;
-    for (const c of s.costs) {
+    for (let qi = 0; qi < W; qi++) {
+      const c = cost[n * W + qi];
       if (c === -1) missing++;
       else if (c === PREFIX) partial++;
       else if (c >= 2) edits += c - 1; // 2 + d whole word → d + 1; a misspelt start → d + 2
     }
-    const score = nameScore(missing, edits, partial, !s.genus, entry.words - s.met.size, entry.kind, entry.primary);
+    let metCount = 0;
+    for (let m = met[n]; m; m &= m - 1) metCount++;
+    const score = nameScore(missing, edits, partial, !genus[n], entry.words - metCount, entry.kind, entry.primary);
+    seen[n] = 0;
+    met[n] = 0;
+    genus[n] = 0;
     const prev = best.get(entry.species);
     if (!prev || score < prev.score) {
       best.set(entry.species, {

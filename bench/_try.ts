@@ -1,0 +1,3 @@
+import { benchSearch } from './search';
+import { printTable } from './lib';
+benchSearch().then(() => printTable());
