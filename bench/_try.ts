@@ -1,3 +1,0 @@
-import { benchSearch } from './search';
-import { printTable } from './lib';
-benchSearch().then(() => printTable());
