@@ -208,20 +208,26 @@ export async function previewSpeciesImport(actor: SessionUser, files: SpeciesImp
   return (await previewFiles(files)).map(({ parsed: _parsed, ...item }) => item);
 }
 
-/** All or nothing: if any file is invalid, nothing is written and the preview comes back as the error. */
-export async function commitSpeciesImport(actor: SessionUser, input: SpeciesImportInput) {
+/**
+ * All or nothing by default: if any file is invalid, nothing is written and the preview comes back
+ * as the error. With `skipInvalid` the valid files are written and the invalid ones come back in
+ * `skipped`, each with its messages per field.
+ */
+export async function commitSpeciesImport(actor: SessionUser, input: Omit<SpeciesImportInput, 'skipInvalid'> & { skipInvalid?: boolean }): Promise<{ results: (SavedRevision | { slug: string; action: 'unchanged' })[]; skipped: ImportPreviewItem[] }> {
   assertEditor(actor);
-  const preview = await previewFiles(input.files);
-  const bad = preview.filter((p) => !p.ok);
-  if (bad.length) {
+  const all = await previewFiles(input.files);
+  const bad = all.filter((p) => !p.ok);
+  const preview = all.filter((p) => p.ok);
+  if (bad.length && (!input.skipInvalid || !preview.length)) {
     const fields: FieldErrors = {};
     for (const b of bad) for (const [k, v] of Object.entries(b.fields ?? {})) fields[`${b.name}: ${k}`] = v;
-    throw new AppError('invalid:import', `${bad.length} file(s) are not valid; nothing was imported.`, fields);
+    throw new AppError('invalid:import', preview.length ? `${bad.length} file(s) are not valid; nothing was imported.` : 'No file in this import is valid; nothing was imported.', fields);
   }
+  const skipped = bad.map(({ parsed: _parsed, ...item }) => item);
   const summary = input.summary || 'Imported from a species file';
   const db = await getDb();
   // One transaction: a conflict on any file (say, an edit saved meanwhile) writes none of them.
-  return db.transaction(async (tx) => {
+  const results = await db.transaction(async (tx) => {
     const results: (SavedRevision | { slug: string; action: 'unchanged' })[] = [];
     for (const p of preview) {
       const { record, body } = p.parsed!;
@@ -236,4 +242,7 @@ export async function commitSpeciesImport(actor: SessionUser, input: SpeciesImpo
     }
     return results;
   });
+  // Again after the commit: a read on another connection during the transaction may have cached the old rows.
+  invalidateReads('species');
+  return { results, skipped };
 }

@@ -6,7 +6,8 @@ import { species } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import type { SessionUser } from '@/lib/auth/session';
 import { hasRole } from '@/lib/auth/roles';
-import { searchSpecies } from '@/lib/species/search';
+import { cachedRead } from './read-cache';
+import { buildSpeciesIndex, compareHits, matchNote, queryWords, searchSpecies, cmp, type SearchMatch, type SpeciesSearchIndex } from '@/lib/species/search';
 import type { SpeciesListQuery } from '@/lib/validation/species';
 
 export interface SpeciesListItem {
@@ -23,7 +24,9 @@ export interface SpeciesListItem {
   /** Editors only: the newest revision and whether it is an unpublished draft. */
   latestRevision?: number;
   hasDraft?: boolean;
+  /** With a query: the rank (lower is better) and which name matched, said in words when worth saying. */
   score?: number;
+  match?: SearchMatch & { note: string | null };
 }
 
 export interface SpeciesListPage {
@@ -31,22 +34,34 @@ export interface SpeciesListPage {
   nextCursor: string | null;
 }
 
-type Cursor = { b: string; s: string; sc?: number };
+type Cursor = { b: string; s: string; sc?: number; h?: string };
 
 function encodeCursor(c: Cursor) {
   return Buffer.from(JSON.stringify(c)).toString('base64url');
 }
 
-function decodeCursor(raw: string | undefined, withScore: boolean): Cursor | null {
+const badCursor = () => new AppError('bad_request:cursor', 'The cursor is not valid: start again from the first page.', { cursor: ['Not a cursor this list gave out'] });
+
+function decodeCursor(raw: string | undefined, searchKey: string | null): Cursor | null {
   if (!raw) return null;
+  let c: Cursor;
   try {
-    const c = JSON.parse(Buffer.from(raw, 'base64url').toString('utf8')) as Cursor;
-    if (typeof c.b !== 'string' || typeof c.s !== 'string') throw new Error('shape');
-    if (withScore && typeof c.sc !== 'number') throw new Error('score');
-    return c;
+    c = JSON.parse(Buffer.from(raw, 'base64url').toString('utf8')) as Cursor;
   } catch {
-    throw new AppError('bad_request:cursor', 'The cursor is not valid: start again from the first page.', { cursor: ['Not a cursor this list gave out'] });
+    throw badCursor();
   }
+  if (!c || typeof c.b !== 'string' || typeof c.s !== 'string') throw badCursor();
+  // A search cursor belongs to one query and one set of filters: another search would skip or repeat rows.
+  if (searchKey === null ? c.sc !== undefined || c.h !== undefined : !Number.isSafeInteger(c.sc) || c.h !== searchKey) throw badCursor();
+  return c;
+}
+
+/** A short, stable fingerprint of what a search page depends on (FNV-1a over the words and filters). */
+function searchFingerprint(query: SpeciesListQuery) {
+  const text = JSON.stringify([queryWords(query.q ?? ''), query.group ?? '', query.flush ?? '', query.vigour ?? '', query.needleMin ?? '', query.needleMax ?? '']);
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193) >>> 0;
+  return h.toString(36);
 }
 
 const columns = {
@@ -115,7 +130,7 @@ export async function listSpecies(viewer: SessionUser | null, query: SpeciesList
   });
 
   if (!q) {
-    const cursor = decodeCursor(query.cursor, false);
+    const cursor = decodeCursor(query.cursor, null);
     if (cursor) {
       where.push(or(gt(species.botanicalName, cursor.b), and(eq(species.botanicalName, cursor.b), gt(species.slug, cursor.s))));
     }
@@ -133,23 +148,42 @@ export async function listSpecies(viewer: SessionUser | null, query: SpeciesList
     };
   }
 
-  const cursor = decodeCursor(query.cursor, true);
-  const rows = await db.select(columns).from(species).where(and(...where));
-  let ranked = searchSpecies(rows, q);
+  // Search: rank every visible species (the index is cached until a species write), keep those
+  // the filters allow, then page by keyset on (score, botanical name, slug). A score depends only on
+  // the query and that species, so a cursor continues exactly where its page ended, in any process.
+  const key = searchFingerprint(query);
+  const cursor = decodeCursor(query.cursor, key);
+  const { index } = await searchableSpecies(db, editor);
+  const allowed = (r: Row) =>
+    (!query.group || r.group === query.group) &&
+    (!query.flush || r.flushHabit === query.flush) &&
+    (!query.vigour || r.vigour === query.vigour) &&
+    (query.needleMin === undefined || (r.needleMaxMm !== null && r.needleMaxMm >= query.needleMin)) &&
+    (query.needleMax === undefined || (r.needleMinMm !== null && r.needleMinMm <= query.needleMax));
+  let ranked = searchSpecies(index.items, q, index).filter((h) => allowed(h.item));
   if (cursor) {
-    const after = (x: { item: { botanicalName: string; slug: string }; score: number }) =>
-      x.score > cursor.sc! ||
-      (x.score === cursor.sc && (x.item.botanicalName.localeCompare(cursor.b) > 0 || (x.item.botanicalName === cursor.b && x.item.slug.localeCompare(cursor.s) > 0)));
-    ranked = ranked.filter(after);
+    const mark = { score: cursor.sc!, item: { botanicalName: cursor.b, slug: cursor.s, commonNames: [], synonyms: [] } };
+    ranked = ranked.filter((h) => compareHits(h, mark) > 0);
   }
   const page = ranked.slice(0, limit);
   const last = page[page.length - 1];
   return {
-    items: page.map((r) => toItem(r.item, r.score)),
-    nextCursor: ranked.length > limit && last ? encodeCursor({ b: last.item.botanicalName, s: last.item.slug, sc: last.score }) : null,
+    items: page.map((h) => ({ ...toItem(h.item, h.score), match: { ...h.match, note: matchNote(h.match) } })),
+    nextCursor: ranked.length > limit && last ? encodeCursor({ sc: last.score, b: last.item.botanicalName, s: last.item.slug, h: key }) : null,
   };
 }
 
+/** Every species the viewer's role may see, with its search index; rebuilt after any species write. */
+function searchableSpecies(db: Awaited<ReturnType<typeof getDb>>, editor: boolean): Promise<{ index: SpeciesSearchIndex<Row> }> {
+  return cachedRead(db, 'species', editor ? 'search:editor' : 'search:published', async () => {
+    const rows = await db
+      .select(columns)
+      .from(species)
+      .where(editor ? undefined : isNotNull(species.publishedRevision));
+    rows.sort((a, b) => cmp(a.botanicalName, b.botanicalName) || cmp(a.slug, b.slug));
+    return { index: buildSpeciesIndex(rows) };
+  });
+}
 
 /** Every species the viewer may see, in name order (the /species table filters these as you type). */
 export async function listAllSpecies(viewer: SessionUser | null): Promise<SpeciesListItem[]> {

@@ -1,7 +1,7 @@
 import matter from 'gray-matter';
 import YAML from 'yaml';
 import type { FieldErrors } from '@/lib/errors';
-import { fieldErrorsOf } from '@/lib/validation/fields';
+import { speciesFieldErrors, yamlProblems } from './file-messages';
 import { missingCitations, speciesRecordSchema, type SpeciesRecord } from '@/lib/validation/species';
 import { markdownProblem } from '@/lib/markdown/limits';
 
@@ -16,10 +16,23 @@ export type ParsedSpecies =
   | { ok: true; record: SpeciesRecord; body: string }
   | { ok: false; message: string; fields: FieldErrors };
 
+class FrontMatterError extends Error {
+  constructor(readonly problems: string[]) {
+    super(problems.join(' '));
+  }
+}
+
 const matterOptions = {
   // YAML 1.2 through `yaml` (no implicit dates or other surprises); passing options also
-  // keeps gray-matter from caching and sharing parsed objects between calls.
-  engines: { yaml: (s: string) => YAML.parse(s) as object },
+  // keeps gray-matter from caching and sharing parsed objects between calls. Every syntax
+  // error is kept, not just the first.
+  engines: {
+    yaml: (s: string) => {
+      const doc = YAML.parseDocument(s);
+      if (doc.errors.length) throw new FrontMatterError(yamlProblems(doc.errors, s));
+      return doc.toJS() as object;
+    },
+  },
   language: 'yaml',
 };
 
@@ -34,8 +47,8 @@ export function parseSpeciesMarkdown(source: string): ParsedSpecies {
     data = parsed.data;
     body = parsed.content.replace(/^\r?\n/, '').trimEnd();
   } catch (e) {
-    const reason = e instanceof Error ? e.message.split('\n')[0] : 'unreadable';
-    return { ok: false, message: 'The front matter is not valid YAML.', fields: { frontMatter: [reason] } };
+    const problems = e instanceof FrontMatterError ? e.problems : ['The front matter could not be read: check that it is YAML between two --- lines.'];
+    return { ok: false, message: 'The front matter is not valid YAML.', fields: { frontMatter: problems } };
   }
   if (body.length > MAX_BODY_CHARS) {
     return { ok: false, message: 'The care notes are too long.', fields: { body: [`Keep the care notes under ${MAX_BODY_CHARS} characters.`] } };
@@ -43,7 +56,7 @@ export function parseSpeciesMarkdown(source: string): ParsedSpecies {
   const problem = markdownProblem(body);
   if (problem) return { ok: false, message: 'The care notes cannot be shown.', fields: { body: [problem] } };
   const result = speciesRecordSchema.safeParse(data);
-  if (!result.success) return { ok: false, message: 'Some fields are not valid.', fields: fieldErrorsOf(result.error) };
+  if (!result.success) return { ok: false, message: 'Some fields are not valid.', fields: speciesFieldErrors(result.error, data) };
   // A species file is published content: every published value carries its citation.
   const uncited = missingCitations(result.data);
   if (Object.keys(uncited).length) return { ok: false, message: 'Some published values have no citation.', fields: uncited };

@@ -201,5 +201,7 @@ export const speciesImportSchema = z.object({
     .max(MAX_IMPORT_FILES, { error: `Import at most ${MAX_IMPORT_FILES} files at a time.` }),
   summary: editSummary,
   publish: z.boolean().default(false),
+  /** Write the valid files and leave out the ones with errors (listed back), instead of all or nothing. */
+  skipInvalid: z.boolean().default(false),
 });
 export type SpeciesImportInput = z.infer<typeof speciesImportSchema>;

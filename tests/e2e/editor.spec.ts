@@ -94,7 +94,8 @@ test('at 360 px a source tooltip and long import errors stay on screen', async (
   const broken = good.replace(/flushHabit:\n(\s+)value: single/, `flushHabit:\n$1value: ${'x'.repeat(120)}`);
   await page.goto('/species/import');
   await page.getByTestId('import-files').setInputFiles([{ name: longName, mimeType: 'text/markdown', buffer: Buffer.from(broken) }]);
-  await expect(page.getByTestId('import-preview')).toContainText('traits.flushHabit.value');
+  await expect(page.getByTestId('import-preview')).toContainText('Flush habit (trade), value: “xxx');
+  await expect(page.getByTestId('import-preview')).toContainText('Use single, double or polycyclic.');
   await expectNoPageOverflow(page);
   await page.screenshot({ path: screenshotPath('species-import-errors-360'), fullPage: true });
 });

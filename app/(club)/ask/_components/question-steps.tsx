@@ -1,6 +1,6 @@
 'use client';
 import { useMemo, useState } from 'react';
-import Fuse from 'fuse.js';
+import { buildSpeciesIndex, searchSpecies } from '@/lib/species/search';
 import type { AskAnswers } from '@/lib/wizard/ask.machine';
 import { asksBackBuds } from '@/lib/wizard/ask.machine';
 import type { ContainerShape } from '@/lib/wizard/types';
@@ -18,8 +18,9 @@ type Set = (a: Partial<AskAnswers>) => void;
 
 export function SpeciesStep({ species, value, onChange }: { species: SpeciesName[]; value?: string; onChange: Set }) {
   const [query, setQuery] = useState('');
-  const fuse = useMemo(() => new Fuse(species, { keys: ['commonNames', 'botanicalName', 'synonyms'], threshold: 0.35, ignoreLocation: true }), [species]);
-  const shown = query.trim() ? fuse.search(query.trim()).map((r) => r.item).slice(0, 8) : species;
+  // The species list's own ranking, so the picker and /species agree on what a query means.
+  const index = useMemo(() => buildSpeciesIndex(species), [species]);
+  const shown = query.trim() ? searchSpecies(species, query, index).map((r) => r.item).slice(0, 8) : species;
   const chosen = species.find((s) => s.slug === value);
   return (
     <div className="space-y-4">

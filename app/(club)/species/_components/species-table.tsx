@@ -7,7 +7,7 @@ import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, 
 import { SortableTable } from '@/components/sortable-table';
 import { fetcher } from '@/components/fetcher';
 import type { SpeciesListItem, SpeciesListPage } from '@/lib/data/species-list';
-import { buildSpeciesIndex, searchSpecies } from '@/lib/species/search';
+import { buildSpeciesIndex, matchNote, searchSpecies } from '@/lib/species/search';
 import { groupLabels, valueLabels } from '@/lib/species/labels';
 import { flushHabits, levels, speciesGroups } from '@/lib/validation/species';
 
@@ -49,11 +49,18 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
   const all = data && data.nextCursor === null ? data.items : initialItems;
   const index = useMemo(() => buildSpeciesIndex(all), [all]);
 
-  const rows = useMemo(() => {
+  // The same ranking module as GET /api/species?q=, so the order here is the server's order.
+  const { rows, notes } = useMemo(() => {
     const filtered = applyFilters(all, f);
-    if (!f.q.trim()) return filtered;
+    if (!f.q.trim()) return { rows: filtered, notes: new Map<string, string>() };
     const allowed = new Set(filtered.map((i) => i.slug));
-    return searchSpecies(all, f.q, index).filter((r) => allowed.has(r.item.slug)).map((r) => r.item);
+    const hits = searchSpecies(all, f.q, index).filter((r) => allowed.has(r.item.slug));
+    const notes = new Map<string, string>();
+    for (const h of hits) {
+      const note = matchNote(h.match);
+      if (note) notes.set(h.item.slug, note);
+    }
+    return { rows: hits.map((r) => r.item), notes };
   }, [all, f, index]);
 
   // The URL holds the search and filters so a search can be shared; replace, not push, so
@@ -83,6 +90,11 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
               {c.getValue()}
             </Link>
             <span className="text-stone-700 sm:hidden">{c.row.original.commonNames.join(', ')}</span>
+            {notes.has(c.row.original.slug) && (
+              <span className="text-sm text-stone-700" data-testid="species-match-note">
+                {notes.get(c.row.original.slug)}
+              </span>
+            )}
             {showDrafts && c.row.original.publishedRevision === null && <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Not published</span>}
             {showDrafts && c.row.original.publishedRevision !== null && c.row.original.hasDraft && <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Draft waiting</span>}
           </span>
@@ -106,7 +118,7 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
         meta: { narrowHidden: true },
       }),
     ],
-    [showDrafts],
+    [showDrafts, notes],
   );
 
   const table = useReactTable({

@@ -16,10 +16,12 @@ export function ImportPanel() {
   const [summary, setSummary] = useState('');
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
+  const [done, setDone] = useState(false);
 
   async function choose(list: FileList | null) {
     setPreview(null);
     setMessage(null);
+    setDone(false);
     if (!list?.length) return setFiles([]);
     if (list.length > MAX_IMPORT_FILES) return setMessage({ tone: 'error', text: `Choose at most ${MAX_IMPORT_FILES} files at a time.` });
     const read = await Promise.all([...list].map(async (f) => ({ name: f.name, content: await f.text() })));
@@ -39,10 +41,13 @@ export function ImportPanel() {
     setBusy(true);
     setMessage(null);
     try {
-      const res = await sendJson<{ results: unknown[] }>('/api/species/import', 'POST', { files, publish, summary });
-      setMessage({ tone: 'ok', text: `Imported ${res.results.length} file(s) ${publish ? 'and published them' : 'as drafts'}.` });
-      setPreview(null);
+      const res = await sendJson<{ results: unknown[]; skipped: ImportPreviewItem[] }>('/api/species/import', 'POST', { files, publish, summary, skipInvalid: bad > 0 });
+      const left = res.skipped.length ? ` ${res.skipped.length} file(s) with errors were left out; they are listed below.` : '';
+      setMessage({ tone: 'ok', text: `Imported ${res.results.length} file(s) ${publish ? 'and published them' : 'as drafts'}.${left}` });
+      // Keep the files that were left out on screen, with their messages, to fix and choose again.
+      setPreview(res.skipped.length ? res.skipped : null);
       setFiles([]);
+      setDone(true);
     } catch (e) {
       setMessage({ tone: 'error', text: e instanceof ApiError ? e.body.message : 'The server could not be reached.' });
     } finally {
@@ -84,7 +89,9 @@ export function ImportPanel() {
                     <p className="text-clay-700">{p.message}</p>
                     <ul className="mt-2 list-disc pl-5 text-sm">
                       {Object.entries(p.fields ?? {}).map(([field, msgs]) => (
-                        <li key={field} className="[overflow-wrap:anywhere]"><code className="rounded bg-stone-100 px-1 break-all">{field}</code>: {msgs.join(' ')}</li>
+                        <li key={field} className="[overflow-wrap:anywhere]" data-field={field}>
+                          {msgs.map((m) => <span key={m} className="block">{m}</span>)}
+                        </li>
                       ))}
                     </ul>
                   </>
@@ -92,12 +99,17 @@ export function ImportPanel() {
               </li>
             ))}
           </ul>
-          {bad > 0 ? (
-            <p className="text-clay-700" role="status">Fix the {bad} file(s) with errors and choose them again; nothing is imported while any file has errors.</p>
-          ) : writable === 0 ? (
-            <p role="status">Every file matches what is already in the knowledge base.</p>
+          {done ? null : writable === 0 ? (
+            <p role="status" className={bad > 0 ? 'text-clay-700' : ''}>
+              {bad > 0 ? `Fix the ${bad} file(s) with errors and choose them again; no file here can be imported yet.` : 'Every file matches what is already in the knowledge base.'}
+            </p>
           ) : (
             <div className="card space-y-3">
+              {bad > 0 && (
+                <p className="text-clay-700" data-testid="import-partial">
+                  {bad} file(s) have errors and will be left out. The other {writable} can be imported now; fix the rest and choose them again later.
+                </p>
+              )}
               <div>
                 <label htmlFor="import-summary" className="field-label">Edit summary</label>
                 <input id="import-summary" className="field-input" value={summary} onChange={(e) => setSummary(e.target.value)} placeholder="Imported from …" />
@@ -106,7 +118,9 @@ export function ImportPanel() {
                 <input type="checkbox" className="h-5 w-5" checked={publish} onChange={(e) => setPublish(e.target.checked)} />
                 Publish at once (otherwise saved as drafts for review)
               </label>
-              <button type="button" className="btn-primary" disabled={busy} onClick={() => void commit()}>Import {writable} file(s)</button>
+              <button type="button" className="btn-primary" disabled={busy} onClick={() => void commit()}>
+                {bad > 0 ? `Import the ${writable} valid file(s)` : `Import ${writable} file(s)`}
+              </button>
             </div>
           )}
         </section>
