@@ -7,6 +7,7 @@ import { OFFLINE_DATA_URL, WIZARD_DATA_CACHE } from '@/lib/offline/cache-names';
 import { ApiError, fetcher } from '@/components/fetcher';
 import type { SaveRequest } from '@/lib/wizard/ask.machine';
 import { currentMemberId } from './member';
+import { isOffline, markReachable, markUnreachable } from './connectivity';
 import { enqueueSave, flushQueue, newIdempotencyKey, sentRecord } from './queue';
 
 // The wizard's evaluate and save, with or without a signal. Online, the server answers as always.
@@ -77,10 +78,15 @@ export async function evaluateOnPhone(input: EvaluateBody, data?: OfflineWizardD
 export async function evaluateAnywhere(input: EvaluateBody): Promise<WizardResult> {
   try {
     const result = await fetcher<WizardResult>('/api/wizard/evaluate', { method: 'POST', body: JSON.stringify(input), signal: AbortSignal.timeout(NETWORK_WAIT_MS) });
+    markReachable();
     last = { body: JSON.stringify(input), result };
     return result;
   } catch (e) {
-    if (!isNetworkFailure(e)) throw new Error(messageOf(e));
+    if (!isNetworkFailure(e)) {
+      markReachable();
+      throw new Error(messageOf(e));
+    }
+    markUnreachable();
     return evaluateOnPhone(input);
   }
 }
@@ -117,14 +123,19 @@ export async function saveAnywhere(input: SaveRequest): Promise<{ id: string; ur
     await enqueueSave({ key, userId, body, label: { speciesName: shown?.speciesName ?? input.body.species, headline: shown?.headline ?? '', date: input.body.date } });
     return { id: key, url: WAITING_URL };
   };
-  if (typeof navigator !== 'undefined' && navigator.onLine === false) return queue();
+  if (isOffline()) return queue();
   try {
     const r = await fetcher<{ id: string; url: string }>('/api/answers', {
       method: 'POST', body: JSON.stringify(body), headers: { 'Idempotency-Key': key }, signal: AbortSignal.timeout(NETWORK_WAIT_MS * 2),
     });
+    markReachable();
     return { id: r.id, url: r.url };
   } catch (e) {
-    if (!isNetworkFailure(e)) throw new Error(messageOf(e));
+    if (!isNetworkFailure(e)) {
+      markReachable();
+      throw new Error(messageOf(e));
+    }
+    markUnreachable();
     return queue();
   }
 }

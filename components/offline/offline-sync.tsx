@@ -1,5 +1,6 @@
 'use client';
 import { useEffect } from 'react';
+import { isOffline, probe, subscribeConnectivity } from './connectivity';
 import { setCurrentMember, warmOfflineCopies } from './member';
 import { flushQueue } from './queue';
 
@@ -11,18 +12,27 @@ import { flushQueue } from './queue';
 export function OfflineSync({ userId }: { userId: string | null }) {
   useEffect(() => {
     let stopped = false;
+    let wasOffline = isOffline();
     const send = () => {
-      if (userId && navigator.onLine) void flushQueue(userId).catch(() => {});
+      if (userId && !isOffline()) void flushQueue(userId).catch(() => {});
     };
-    void setCurrentMember(userId).then(() => {
-      if (stopped || !navigator.onLine) return;
+    const off = subscribeConnectivity(() => {
+      const now = isOffline();
+      if (wasOffline && !now) {
+        send();
+        void warmOfflineCopies(!!userId);
+      }
+      wasOffline = now;
+    });
+    void setCurrentMember(userId).then(async () => {
+      // A page served from the worker's copy may think it is online: ask the server first.
+      if (stopped || !(await probe()) || stopped) return;
       send();
       void warmOfflineCopies(!!userId);
     });
-    window.addEventListener('online', send);
     return () => {
       stopped = true;
-      window.removeEventListener('online', send);
+      off();
     };
   }, [userId]);
   return null;

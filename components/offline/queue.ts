@@ -1,5 +1,6 @@
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { SaveAnswerWithPhoneBody } from '@/lib/validation/offline';
+import { markReachable, markUnreachable } from './connectivity';
 
 // Answers saved with no signal wait here, in IndexedDB, until the connection returns. Each keeps
 // the Idempotency-Key it was given when it was queued, so sending it again (a retry, a second tab,
@@ -154,8 +155,10 @@ export const sendToServer: Sender = async (entry) => {
       signal: AbortSignal.timeout(15_000),
     });
   } catch (e) {
+    markUnreachable();
     return { kind: 'later', reason: e instanceof Error ? e.message : 'No connection' };
   }
+  markReachable();
   const data = (await res.json().catch(() => null)) as { id?: string; url?: string; error?: { message?: string } } | null;
   if (res.ok && data?.id && data.url) return { kind: 'saved', id: data.id, url: data.url };
   const reason = data?.error?.message ?? `The server answered ${res.status}.`;
