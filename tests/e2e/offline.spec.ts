@@ -69,11 +69,14 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
   await noOverflow(page);
   await page.screenshot({ path: screenshotPath('offline-answer-360'), fullPage: true });
 
+  await page.locator('form:has(#save-note)').screenshot({ path: screenshotPath('offline-save-form-360') });
+  await onPhone.screenshot({ path: screenshotPath('offline-worked-out-360') });
   await page.getByLabel('Note (optional)').fill('long shoot, south side');
   await page.getByRole('button', { name: 'Save on this phone' }).click();
   await expect(page.getByTestId('saved-waiting')).toContainText('waiting to send');
   await expect(page.getByTestId('waiting-count')).toHaveText('1');
   await expect(page.getByTestId('waiting-item')).toContainText('Scots pine, 2027-05-10');
+  await page.getByTestId('saved-waiting').locator('..').screenshot({ path: screenshotPath('offline-save-waiting-360') });
   await noOverflow(page);
   await page.screenshot({ path: screenshotPath('offline-waiting-360'), fullPage: true });
   expect(await ownAnswerIds(page)).toEqual(before);
@@ -107,6 +110,25 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
   await page.goto('/answers');
   await expect(page.getByTestId('waiting-answers')).toHaveCount(0);
   await expect(page.getByTestId('answers-list').locator(`a[href="/answers/${added[0]}"]`)).toHaveCount(1);
+});
+
+test('a saved answer the phone worked out differently shows both answers', async ({ page }) => {
+  await new SignInPage(page).withPassword('member@candlewise.test');
+  const body = { species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average' };
+  const server = await (await page.request.post('/api/wizard/evaluate', { data: body })).json();
+  const phoneResult = { ...server, action: 'wait', headline: 'Wait: nothing to do now', speciesRevision: server.speciesRevision - 1, reasons: server.reasons.slice(0, 1) };
+  const saved = await page.request.post('/api/answers', { data: { ...body, phoneResult }, headers: { 'Idempotency-Key': `e2e-${Date.now()}-compare-key` } });
+  expect(saved.status()).toBe(201);
+  await page.goto((await saved.json()).url);
+  const both = page.getByTestId('phone-comparison');
+  await expect(both.getByTestId('phone-answer')).toContainText('Wait: nothing to do now');
+  await expect(both.getByTestId('phone-answer')).toContainText(`species revision ${server.speciesRevision - 1}`);
+  await expect(both.getByTestId('server-answer')).toContainText(server.headline);
+  await both.getByText('Which reasons differ').click();
+  await noOverflow(page);
+  await both.screenshot({ path: screenshotPath('phone-comparison-360') });
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await both.screenshot({ path: screenshotPath('phone-comparison-desktop') });
 });
 
 test('signing out drops the member caches', async ({ page }) => {
