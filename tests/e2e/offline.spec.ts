@@ -112,7 +112,7 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
   await expect(page.getByTestId('answers-list').locator(`a[href="/answers/${added[0]}"]`)).toHaveCount(1);
 });
 
-test('a saved answer the phone worked out differently shows both answers', async ({ page }) => {
+test('a saved answer the phone worked out differently shows both answers; offline its edits say they need a connection', async ({ page, context }) => {
   await new SignInPage(page).withPassword('member@candlewise.test');
   const body = { species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average' };
   const server = await (await page.request.post('/api/wizard/evaluate', { data: body })).json();
@@ -129,6 +129,23 @@ test('a saved answer the phone worked out differently shows both answers', async
   await both.screenshot({ path: screenshotPath('phone-comparison-360') });
   await page.setViewportSize({ width: 1280, height: 900 });
   await both.screenshot({ path: screenshotPath('phone-comparison-desktop') });
+  await page.setViewportSize({ width: 360, height: 740 });
+
+  // Offline, the kept copy of the page says what needs a connection instead of pretending.
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  await page.reload();
+  await context.setOffline(true);
+  await page.reload();
+  await expect(page.getByTestId('offline-banner')).toBeVisible();
+  await expect(page.getByTestId('owner-offline')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Save changes' })).toBeDisabled();
+  await expect(page.getByRole('button', { name: 'Delete…' })).toBeDisabled();
+  await expect(page.getByText('Adding and removing photos needs a connection.')).toBeVisible();
+  await expect(page.getByTestId('photo-input')).toBeDisabled();
+  await noOverflow(page);
+  await page.screenshot({ path: screenshotPath('answer-offline-360'), fullPage: true });
+  await context.setOffline(false);
+  await expect(page.getByRole('button', { name: 'Save changes' })).toBeEnabled({ timeout: 15_000 });
 });
 
 test('signing out drops the member caches', async ({ page }) => {
