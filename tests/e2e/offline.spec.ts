@@ -142,6 +142,7 @@ test('a saved answer the phone worked out differently shows both answers; offlin
   await expect(page.getByRole('button', { name: 'Delete…' })).toBeDisabled();
   await expect(page.getByText('Adding and removing photos needs a connection.')).toBeVisible();
   await expect(page.getByTestId('photo-input')).toBeDisabled();
+  await expect(page.getByRole('button', { name: 'Re-run this answer' })).toBeDisabled();
   await noOverflow(page);
   await page.screenshot({ path: screenshotPath('answer-offline-360'), fullPage: true });
   await context.setOffline(false);
