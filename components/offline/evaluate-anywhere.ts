@@ -8,7 +8,7 @@ import { ApiError, fetcher } from '@/components/fetcher';
 import type { SaveRequest } from '@/lib/wizard/ask.machine';
 import { currentMemberId } from './member';
 import { isOffline, markReachable, markUnreachable } from './connectivity';
-import { enqueueSave, flushQueue, newIdempotencyKey, sentRecord } from './queue';
+import { enqueueSave, newIdempotencyKey } from './queue';
 
 // The wizard's evaluate and save, with or without a signal. Online, the server answers as always.
 // When the request cannot reach it, the phone runs the same engine module (lib/wizard/engine.ts)
@@ -138,14 +138,4 @@ export async function saveAnywhere(input: SaveRequest): Promise<{ id: string; ur
     markUnreachable();
     return queue();
   }
-}
-
-/** Sends what waits for the signed-in member; returns what the given key became, if it was sent. */
-export async function sendWaiting(key?: string): Promise<{ id: string; url: string } | null> {
-  const userId = currentMemberId();
-  if (!userId) return null;
-  await flushQueue(userId);
-  if (!key) return null;
-  const r = await sentRecord(key, userId);
-  return r ? { id: r.id, url: r.url } : null;
 }
