@@ -5,6 +5,8 @@ import { sans, display } from './fonts';
 import { SiteHeader } from '@/components/site-header';
 import { ServiceWorker } from '@/components/offline/service-worker';
 import { OfflineBanner } from '@/components/offline/offline-banner';
+import { OfflineSync } from '@/components/offline/offline-sync';
+import { getCurrentUser } from '@/lib/auth/session';
 
 export const metadata: Metadata = {
   title: { default: 'Candlewise', template: '%s · Candlewise' },
@@ -17,6 +19,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   // Reading the request makes every page render per request, so each gets the nonce that
   // proxy.ts put in its policy (Next adds it to its own scripts).
   await headers();
+  const user = await getCurrentUser();
   return (
     <html lang="en" className={`${sans.variable} ${display.variable}`}>
       <body className="min-h-screen">
@@ -26,6 +29,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
         </a>
         <SiteHeader />
         <OfflineBanner />
+        <OfflineSync userId={user?.id ?? null} />
         <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6 sm:py-10">
           {children}
         </main>

@@ -1,6 +1,7 @@
 'use client';
 import { signOut } from 'next-auth/react';
 import { useState } from 'react';
+import { clearMemberCaches } from '@/components/offline/member';
 
 export function SignOutButton() {
   const [pending, setPending] = useState(false);
@@ -11,7 +12,8 @@ export function SignOutButton() {
       disabled={pending}
       onClick={() => {
         setPending(true);
-        void signOut({ callbackUrl: '/' });
+        // What this member's pages and trees left in the offline caches goes before anyone else signs in.
+        void clearMemberCaches().finally(() => signOut({ callbackUrl: '/' }));
       }}
     >
       {pending ? 'Signing out…' : 'Sign out'}

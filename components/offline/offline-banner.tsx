@@ -1,18 +1,10 @@
 'use client';
 import { useSyncExternalStore } from 'react';
+import { isOffline, subscribeConnectivity } from './connectivity';
 
-function subscribe(cb: () => void) {
-  window.addEventListener('online', cb);
-  window.addEventListener('offline', cb);
-  return () => {
-    window.removeEventListener('online', cb);
-    window.removeEventListener('offline', cb);
-  };
-}
-
-/** True while the browser says it has no connection; true on the server, so nothing flashes. */
+/** False while there is no connection to Candlewise (components/offline/connectivity.ts); true on the server, so nothing flashes. */
 export function useOnline(): boolean {
-  return useSyncExternalStore(subscribe, () => navigator.onLine, () => true);
+  return useSyncExternalStore(subscribeConnectivity, () => !isOffline(), () => true);
 }
 
 /** Says plainly what works with no signal and what does not. */

@@ -1,8 +1,9 @@
 'use client';
-import { useRef, useState } from 'react';
+import { useId, useRef, useState } from 'react';
 import useSWR from 'swr';
 import type { PhotoDto } from '@/lib/data/photos';
 import { fetcher, sendJson } from '@/components/fetcher';
+import { useOnline } from '@/components/offline/offline-banner';
 import { ACCEPTED_TYPES, MAX_BYTES, MAX_PER_ITEM, formatBytes, uploadPhoto, type UploadTarget } from './upload';
 
 interface Job {
@@ -19,6 +20,8 @@ interface Job {
  * request with its own progress and error, so one refused file never costs the others.
  */
 export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadTarget; initial: PhotoDto[]; canAdd: boolean; label: string }) {
+  const online = useOnline();
+  const offlineId = useId();
   const key = `/api/uploads?${'treeId' in target ? `treeId=${encodeURIComponent(target.treeId)}` : `answerId=${encodeURIComponent(target.answerId)}`}`;
   const { data, mutate } = useSWR<{ items: PhotoDto[] }>(key, fetcher, { fallbackData: { items: initial } });
   const photos = data?.items ?? [];
@@ -84,7 +87,7 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
             <div className="flex items-center justify-between gap-2 px-2 py-1 text-xs text-stone-600">
               <span>{p.createdAt.slice(0, 10)} · {p.width}×{p.height}</span>
               {p.mine ? (
-                <button type="button" className="min-h-target px-2 text-sm text-clay-700 underline" onClick={() => void remove(p)} aria-label={`Remove photo ${i + 1}`}>
+                <button type="button" className="min-h-target px-2 text-sm text-clay-700 underline disabled:no-underline disabled:opacity-60" disabled={!online} title={online ? undefined : 'Removing a photo needs a connection'} onClick={() => void remove(p)} aria-label={`Remove photo ${i + 1}`}>
                   Remove
                 </button>
               ) : null}
@@ -95,7 +98,7 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
       {canAdd ? (
         <div className="space-y-3">
           <label
-            className={`btn-secondary cursor-pointer has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-bark-600 ${photos.length >= MAX_PER_ITEM ? 'pointer-events-none opacity-60' : ''}`}
+            className={`btn-secondary cursor-pointer has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-bark-600 ${photos.length >= MAX_PER_ITEM || !online ? 'pointer-events-none opacity-60' : ''}`}
           >
             Add photos
             <input
@@ -104,11 +107,13 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
               accept={ACCEPTED_TYPES.join(',')}
               multiple
               className="sr-only"
-              disabled={photos.length >= MAX_PER_ITEM}
+              disabled={photos.length >= MAX_PER_ITEM || !online}
+              aria-describedby={online ? undefined : offlineId}
               onChange={(e) => void onFiles(e.target.files)}
               data-testid="photo-input"
             />
           </label>
+          {!online && <p id={offlineId} className="text-sm font-medium text-stone-900" data-testid="photos-offline">Adding and removing photos needs a connection.</p>}
           <p className="text-sm text-stone-700">
             JPEG, PNG or WebP, up to 10 MB each, {MAX_PER_ITEM} per item ({photos.length} used). Photos are re-encoded on
             upload: this removes the location and camera details stored in the file, and large photos are scaled to

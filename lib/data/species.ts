@@ -52,6 +52,27 @@ export async function getWizardSpecies(slug: string): Promise<WizardSpecies | nu
   });
 }
 
+/**
+ * Every published species as the wizard reads it, for a phone to keep and evaluate with when it
+ * has no signal. A stored revision that fails the schema is left out, as getPublishedRecord does.
+ */
+export async function listPublishedWizardSpecies(): Promise<WizardSpecies[]> {
+  const db = await getDb();
+  const rows = await db
+    .select({ slug: species.slug, data: speciesRevisions.data, revision: speciesRevisions.revision })
+    .from(species)
+    .innerJoin(speciesRevisions, and(eq(speciesRevisions.speciesId, species.id), eq(speciesRevisions.revision, species.publishedRevision)))
+    .where(eq(speciesRevisions.status, 'published'))
+    .orderBy(asc(species.slug));
+  const out: WizardSpecies[] = [];
+  for (const r of rows) {
+    const parsed = speciesRecordSchema.safeParse(r.data);
+    if (parsed.success) out.push(toWizardSpecies(parsed.data, r.revision));
+    else console.error('[candlewise] stored species revision fails the schema', r.slug, r.revision);
+  }
+  return out;
+}
+
 /** Names of every published species, for fuzzy search in the wizard's species picker. */
 export async function listWizardSpeciesNames(): Promise<SpeciesNameDto[]> {
   const db = await getDb();

@@ -6,7 +6,7 @@ import { AppError } from '@/lib/errors';
 import { evaluate, WizardInputError } from '@/lib/wizard/engine';
 import type { WizardContext, WizardInput, WizardResult } from '@/lib/wizard/types';
 import type { WizardSpecies } from '@/lib/validation/species';
-import { getWizardSpecies } from './species';
+import { getWizardSpecies, listPublishedWizardSpecies } from './species';
 import { getClubSettings } from './settings';
 
 export function todayIso(now = new Date()): string {
@@ -16,6 +16,18 @@ export function todayIso(now = new Date()): string {
 export async function wizardContext(): Promise<WizardContext> {
   const s = await getClubSettings();
   return { hemisphere: s.hemisphere, latitude: s.defaultLatitude, today: todayIso(), decandleOffsetDays: s.decandleOffsetDays };
+}
+
+export interface OfflineWizardData {
+  /** The club's settings the engine reads; `today` is left to the phone's own clock. */
+  context: Omit<WizardContext, 'today'>;
+  species: WizardSpecies[];
+}
+
+/** What a phone needs to run the same engine with no signal: every published species and the club's settings. */
+export async function offlineWizardData(): Promise<OfflineWizardData> {
+  const [s, species] = await Promise.all([getClubSettings(), listPublishedWizardSpecies()]);
+  return { context: { hemisphere: s.hemisphere, latitude: s.defaultLatitude, decandleOffsetDays: s.decandleOffsetDays }, species };
 }
 
 /** Run the engine on a validated body against the published species. Unknown species → 404. */

@@ -5,16 +5,33 @@ import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
 
-export async function freePort(): Promise<number> {
+function listenOn(port: number): Promise<number> {
   return new Promise((resolve, reject) => {
     const srv = net.createServer();
     srv.unref();
     srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
+    srv.listen(port, '127.0.0.1', () => {
+      const { port: got } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(got));
     });
   });
+}
+
+const claimed = new Set<number>();
+
+/** A free port: any the system gives, or one in TEST_PORT_RANGE (e.g. `3100-3199`) on a shared machine. */
+export async function freePort(): Promise<number> {
+  const range = /^(\d+)-(\d+)$/.exec(process.env.TEST_PORT_RANGE ?? '');
+  if (!range) return listenOn(0);
+  for (let p = Number(range[1]); p <= Number(range[2]); p++) {
+    if (claimed.has(p)) continue;
+    try {
+      await listenOn(p);
+      claimed.add(p);
+      return p;
+    } catch {}
+  }
+  throw new Error(`No free port in TEST_PORT_RANGE ${process.env.TEST_PORT_RANGE}`);
 }
 
 export interface RunningApp {

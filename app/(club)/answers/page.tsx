@@ -7,6 +7,7 @@ import { AppError } from '@/lib/errors';
 import { listAnswersQuerySchema } from '@/lib/validation/wizard';
 import { actions } from '@/lib/wizard/types';
 import { headlines } from '@/lib/wizard/engine';
+import { WaitingAnswers } from '@/components/offline/waiting-answers';
 
 export const metadata: Metadata = { title: 'Your answers' };
 
@@ -31,6 +32,7 @@ export default async function AnswersPage({ searchParams }: { searchParams: Prom
         <h1 className="page-title">Your answers</h1>
         <Link href="/ask" className="btn-primary">Ask about a shoot</Link>
       </div>
+      <WaitingAnswers />
       <form method="get" className="card grid gap-3 sm:grid-cols-[1fr_1fr_auto] sm:items-end" aria-label="Filter answers">
         <div>
           <label htmlFor="f-species" className="field-label">Species</label>

@@ -29,6 +29,7 @@ export const clubRows: RouteRow[] = [
     route: 'POST /api/wizard/evaluate', file: 'app/api/wizard/evaluate/route.ts', method: 'POST', kind: 'api', body: 'json',
     request: async (f) => ({ path: '/api/wizard/evaluate', json: await evaluateBody(f) }), expect: every(200), fuzz: { as: 'anonymous' },
   },
+  { route: 'GET /api/wizard/offline-data', file: 'app/api/wizard/offline-data/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/wizard/offline-data' }), expect: every(200) },
   { route: 'GET /api/answers', file: 'app/api/answers/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/answers?limit=5' }), expect: signedIn(200) },
   {
     route: 'POST /api/answers', file: 'app/api/answers/route.ts', method: 'POST', kind: 'api', body: 'json',

@@ -9,6 +9,8 @@ import { RerunPanel } from './_components/rerun-panel';
 import { Backlinks } from '@/components/backlinks';
 import { PhotoPanel } from '@/components/photos/photo-panel';
 import { listPhotos } from '@/lib/data/photos';
+import { PhoneComparison } from '@/components/offline/phone-comparison';
+import type { PhoneResult } from '@/lib/validation/offline';
 
 export const metadata: Metadata = { title: 'Answer' };
 
@@ -42,6 +44,7 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
         </p>
       </div>
       <AnswerResult result={a.result} />
+      {a.phoneResult && <PhoneComparison phone={a.phoneResult as unknown as PhoneResult} server={a.result} />}
       <section className="card" aria-labelledby="inputs-h">
         <h2 id="inputs-h" className="text-lg">What was observed</h2>
         <dl className="mt-2 grid grid-cols-[10rem_1fr] gap-1">

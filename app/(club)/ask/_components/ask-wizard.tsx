@@ -6,12 +6,12 @@ import { useMachine } from '@xstate/react';
 import { fromPromise } from 'xstate';
 import { askMachine, askSteps, isRelevant, type AskAnswers, type AskStep, type SaveRequest } from '@/lib/wizard/ask.machine';
 import type { EvaluateBody } from '@/lib/validation/wizard';
-import type { WizardResult } from '@/lib/wizard/types';
-import { sendJson, ApiError } from '@/components/fetcher';
 import { AnswerResult } from '@/components/wizard/answer-result';
 import { LiquidFeedCalculator } from '@/components/wizard/liquid-feed-calculator';
 import { BranchingStep, HealthStep, PositionStep, ShootStep, SpeciesStep, WhenStep, type SpeciesName } from './question-steps';
 import { SaveAnswer } from './save-answer';
+import { evaluateAnywhere, saveAnywhere } from '@/components/offline/evaluate-anywhere';
+import { WorkedOutOnPhone } from '@/components/offline/worked-out-on-phone';
 
 const STORAGE_KEY = 'candlewise.ask.v1';
 
@@ -19,33 +19,11 @@ const stepTitles: Record<AskStep, string> = {
   species: 'Tree', branching: 'Branching', shoot: 'Shoot', position: 'Outline', health: 'Health', when: 'When and where', answer: 'Answer',
 };
 
-function messageOf(e: unknown) {
-  if (e instanceof ApiError) {
-    const fields = e.body.fields ? Object.entries(e.body.fields).map(([k, v]) => `${k}: ${v.join(', ')}`).join('; ') : '';
-    return fields ? `${e.body.message} (${fields})` : e.body.message;
-  }
-  return e instanceof Error ? e.message : 'Something went wrong.';
-}
-
 const machine = askMachine.provide({
   actors: {
-    evaluate: fromPromise(async ({ input }: { input: EvaluateBody }) => {
-      try {
-        return await sendJson<WizardResult>('/api/wizard/evaluate', 'POST', input);
-      } catch (e) {
-        throw new Error(messageOf(e));
-      }
-    }),
-    save: fromPromise(async ({ input }: { input: SaveRequest }) => {
-      try {
-        const r = await sendJson<{ id: string; url: string }>('/api/answers', 'POST', {
-          ...input.body, visibility: input.visibility, ...(input.note ? { note: input.note } : {}), ...(input.treeId ? { treeId: input.treeId } : {}),
-        });
-        return { id: r.id, url: r.url };
-      } catch (e) {
-        throw new Error(messageOf(e));
-      }
-    }),
+    // With no signal the phone works the answer out itself and queues the save (components/offline).
+    evaluate: fromPromise(({ input }: { input: EvaluateBody }) => evaluateAnywhere(input)),
+    save: fromPromise(({ input }: { input: SaveRequest }) => saveAnywhere(input)),
   },
 });
 
@@ -149,6 +127,7 @@ function Wizard({ boot, species, club, signedIn, treeName }: AskWizardProps & { 
         {step === 'answer' && busy && <p className="text-lg" aria-live="polite">Working out the answer…</p>}
         {step === 'answer' && result && !busy && (
           <div className="space-y-5">
+            <WorkedOutOnPhone result={result} />
             <AnswerResult result={result} />
             <SaveAnswer
               signedIn={signedIn}

@@ -1,6 +1,32 @@
 'use client';
 import { useState } from 'react';
 import Link from 'next/link';
+import { isWaiting } from '@/components/offline/evaluate-anywhere';
+import { useOnline } from '@/components/offline/offline-banner';
+import { useSent } from '@/components/offline/use-queue';
+import { WaitingAnswers } from '@/components/offline/waiting-answers';
+
+/** A save that went into the phone's queue: waiting until it is sent, then a link like any other. */
+function QueuedSave({ queueKey }: { queueKey: string }) {
+  const sent = useSent(queueKey);
+  if (sent) {
+    return (
+      <section className="card border-moss-300 bg-moss-50" role="status" data-testid="saved">
+        <p className="text-lg font-semibold">Sent and saved to your answers.</p>
+        <Link className="btn-primary mt-3" href={sent.url}>Open the saved answer</Link>
+      </section>
+    );
+  }
+  return (
+    <div className="space-y-3">
+      <section className="card border-sun-500" role="status" data-testid="saved-waiting">
+        <p className="text-lg font-semibold">Kept on this phone: waiting to send.</p>
+        <p className="text-stone-700">It is sent by itself when the connection returns, and then appears in your answers.</p>
+      </section>
+      <WaitingAnswers heading="h3" />
+    </div>
+  );
+}
 
 export function SaveAnswer({
   signedIn, saving, saved, error, onSave,
@@ -13,6 +39,7 @@ export function SaveAnswer({
 }) {
   const [note, setNote] = useState('');
   const [visibility, setVisibility] = useState<'private' | 'club'>('private');
+  const online = useOnline();
   if (!signedIn) {
     return (
       <section className="card">
@@ -21,6 +48,7 @@ export function SaveAnswer({
       </section>
     );
   }
+  if (saved && isWaiting(saved)) return <QueuedSave queueKey={saved.id} />;
   if (saved) {
     return (
       <section className="card border-moss-300 bg-moss-50" role="status" data-testid="saved">
@@ -34,7 +62,7 @@ export function SaveAnswer({
       className="card space-y-3"
       onSubmit={(e) => {
         e.preventDefault();
-        onSave(note.trim() || undefined, visibility);
+        onSave(note.trim() || undefined, online ? visibility : 'private');
       }}
     >
       <h3 className="text-lg">Save this answer</h3>
@@ -44,13 +72,18 @@ export function SaveAnswer({
       </div>
       <div>
         <label htmlFor="save-visibility" className="field-label">Who can see it</label>
-        <select id="save-visibility" className="field-input" value={visibility} onChange={(e) => setVisibility(e.target.value as 'private' | 'club')}>
+        <select
+          id="save-visibility" className="field-input" value={online ? visibility : 'private'} disabled={!online}
+          aria-describedby={online ? undefined : 'save-visibility-why'} onChange={(e) => setVisibility(e.target.value as 'private' | 'club')}
+        >
           <option value="private">Only me</option>
           <option value="club">Shared with the club</option>
         </select>
+        {!online && <p id="save-visibility-why" className="mt-1 text-sm text-stone-700">Sharing needs a connection. Saved now, it is kept for you only; share it from the answer once it is sent.</p>}
       </div>
+      {!online && <p className="text-stone-700" data-testid="save-offline-hint">No connection: the answer waits on this phone and is sent when you are back online.</p>}
       {error && <p role="alert" className="field-error">{error}</p>}
-      <button type="submit" className="btn-primary w-full text-lg" disabled={saving}>{saving ? 'Saving…' : 'Save answer'}</button>
+      <button type="submit" className="btn-primary w-full text-lg" disabled={saving}>{saving ? 'Saving…' : online ? 'Save answer' : 'Save on this phone'}</button>
     </form>
   );
 }

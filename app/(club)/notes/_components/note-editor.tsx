@@ -5,6 +5,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { mutate } from 'swr';
 import { ApiError, sendJson } from '@/components/fetcher';
+import { useOnline } from '@/components/offline/offline-banner';
 import type { NoteDto } from '@/lib/data/notes';
 import { noteInputSchema, type NoteInput, type NoteStatus } from '@/lib/validation/notes';
 import { LinkPicker, onOwnLine } from './link-picker';
@@ -43,6 +44,7 @@ function usePreview(body: string) {
 export function NoteEditor({ note }: { note?: NoteDto }) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
+  const online = useOnline();
   const bodyRef = useRef<HTMLTextAreaElement | null>(null);
   const {
     register, handleSubmit, watch, setValue, setError, formState: { errors, isSubmitting },
@@ -145,15 +147,16 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
       <div className="flex flex-wrap items-center gap-3">
         {published ? (
           <>
-            <button type="button" className="btn-primary" disabled={isSubmitting} onClick={() => void save('published')}>Save and keep published</button>
-            <button type="button" className="btn-secondary" disabled={isSubmitting} onClick={() => void save('draft')}>Unpublish (back to draft)</button>
+            <button type="button" className="btn-primary" disabled={isSubmitting || !online} onClick={() => void save('published')}>Save and keep published</button>
+            <button type="button" className="btn-secondary" disabled={isSubmitting || !online} onClick={() => void save('draft')}>Unpublish (back to draft)</button>
           </>
         ) : (
           <>
-            <button type="button" className="btn-secondary" disabled={isSubmitting} onClick={() => void save('draft')}>Save draft</button>
-            <button type="button" className="btn-primary" disabled={isSubmitting} onClick={() => void save('published')}>Publish</button>
+            <button type="button" className="btn-secondary" disabled={isSubmitting || !online} onClick={() => void save('draft')}>Save draft</button>
+            <button type="button" className="btn-primary" disabled={isSubmitting || !online} onClick={() => void save('published')}>Publish</button>
           </>
         )}
+        {!online && <span className="text-sm text-stone-900" data-testid="note-offline">Saving a note needs a connection; keep this page open and save when you are back online.</span>}
         <span role="status" className="text-sm text-clay-700">{message}</span>
       </div>
     </form>

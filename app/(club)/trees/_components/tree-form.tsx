@@ -5,6 +5,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { mutate } from 'swr';
 import { ApiError, sendJson } from '@/components/fetcher';
+import { useOnline } from '@/components/offline/offline-banner';
 import {
   containerShapeLabels, containerShapes, emptyTree, todayIso, treeInputSchema, type TreeInput,
 } from '@/lib/validation/trees';
@@ -16,6 +17,7 @@ const toStringOrNull = (v: unknown) => (v === '' || v == null ? null : String(v)
 export function TreeForm({ species, initial, treeId }: { species: SpeciesOptionDto[]; initial?: TreeInput; treeId?: string }) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
+  const online = useOnline();
   const {
     register, handleSubmit, watch, setValue, setError, formState: { errors, isSubmitting },
   } = useForm<TreeInput>({ resolver: zodResolver(treeInputSchema), defaultValues: initial ?? emptyTree });
@@ -175,7 +177,8 @@ export function TreeForm({ species, initial, treeId }: { species: SpeciesOptionD
       </div>
 
       <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" className="btn-primary" disabled={isSubmitting}>{treeId ? 'Save changes' : 'Add tree'}</button>
+        <button type="submit" className="btn-primary" disabled={isSubmitting || !online}>{treeId ? 'Save changes' : 'Add tree'}</button>
+        {!online && <p className="text-stone-700" data-testid="tree-offline">Saving a tree needs a connection.</p>}
         <span role="status" className="text-sm text-clay-700">{message}</span>
       </div>
     </form>

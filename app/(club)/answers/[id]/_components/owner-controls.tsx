@@ -2,6 +2,7 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { sendJson, ApiError } from '@/components/fetcher';
+import { useOnline } from '@/components/offline/offline-banner';
 
 type State = { note: string; followUp: string; visibility: 'private' | 'club' };
 
@@ -10,6 +11,7 @@ export function OwnerControls({ id, initial }: { id: string; initial: State }) {
   const [v, setV] = useState(initial);
   const [status, setStatus] = useState<{ kind: 'idle' | 'saving' | 'saved' | 'error'; message?: string }>({ kind: 'idle' });
   const [confirmDelete, setConfirmDelete] = useState(false);
+  const online = useOnline();
 
   async function save(e: React.FormEvent) {
     e.preventDefault();
@@ -50,13 +52,14 @@ export function OwnerControls({ id, initial }: { id: string; initial: State }) {
         </select>
       </div>
       <div className="flex flex-wrap gap-3">
-        <button type="submit" className="btn-primary" disabled={status.kind === 'saving'}>{status.kind === 'saving' ? 'Saving…' : 'Save changes'}</button>
+        <button type="submit" className="btn-primary" disabled={status.kind === 'saving' || !online} aria-describedby={online ? undefined : 'owner-offline'}>{status.kind === 'saving' ? 'Saving…' : 'Save changes'}</button>
         {!confirmDelete ? (
-          <button type="button" className="btn-secondary" onClick={() => setConfirmDelete(true)}>Delete…</button>
+          <button type="button" className="btn-secondary" disabled={!online} onClick={() => setConfirmDelete(true)}>Delete…</button>
         ) : (
-          <button type="button" className="btn-danger" onClick={remove}>Yes, delete this answer</button>
+          <button type="button" className="btn-danger" disabled={!online} onClick={remove}>Yes, delete this answer</button>
         )}
       </div>
+      {!online && <p id="owner-offline" className="text-stone-700" data-testid="owner-offline">Changing the note, the follow-up or who can see it needs a connection.</p>}
       <p aria-live="polite" className={status.kind === 'error' ? 'field-error' : 'text-moss-700'}>
         {status.kind === 'saved' ? 'Saved.' : status.kind === 'error' ? status.message : ''}
       </p>

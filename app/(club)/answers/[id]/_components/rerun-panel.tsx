@@ -2,6 +2,7 @@
 import { useState } from 'react';
 import { fetcher, ApiError } from '@/components/fetcher';
 import type { ResultComparison } from '@/lib/wizard/compare';
+import { useOnline } from '@/components/offline/offline-banner';
 
 interface Rerun {
   comparison: ResultComparison | null;
@@ -16,6 +17,7 @@ export function RerunPanel({ id }: { id: string }) {
   const [data, setData] = useState<Rerun | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const online = useOnline();
   async function run() {
     setBusy(true);
     setError(null);
@@ -32,7 +34,8 @@ export function RerunPanel({ id }: { id: string }) {
     <section className="card space-y-3" aria-labelledby="rerun-h" data-testid="rerun">
       <h2 id="rerun-h" className="text-lg">Check against today’s rules</h2>
       <p className="text-stone-700">Runs the same observation through today’s rules and species record and shows any difference.</p>
-      <button type="button" className="btn-secondary" onClick={run} disabled={busy}>{busy ? 'Checking…' : 'Re-run this answer'}</button>
+      <button type="button" className="btn-secondary" onClick={run} disabled={busy || !online} aria-describedby={online ? undefined : 'rerun-offline'}>{busy ? 'Checking…' : 'Re-run this answer'}</button>
+      {!online && <p id="rerun-offline" className="text-stone-700">Checking against today’s rules needs a connection.</p>}
       {error && <p role="alert" className="field-error">{error}</p>}
       {data?.speciesMissing && <p role="status">This species is no longer published, so the answer cannot be re-run.</p>}
       {c && (
