@@ -7,7 +7,7 @@ import { env } from '@/lib/env';
 import { unsubscribeKey } from '@/lib/auth/secret';
 import { sendMail } from '@/lib/mail/transport';
 import { renderDigest } from '@/lib/mail/digest';
-import { createUnsubscribeToken, verifyUnsubscribeToken } from '@/lib/mail/unsubscribe';
+import { createUnsubscribeToken, verifyUnsubscribeToken, type MailList } from '@/lib/mail/unsubscribe';
 import { getNote } from '@/lib/data/notes';
 import { renderNoteWithLinks } from '@/lib/data/note-render';
 import { getClubSettings } from '@/lib/data/settings';
@@ -38,8 +38,8 @@ function requireWriter(actor: SessionUser) {
   assertRole(actor, 'librarian', 'notes', 'Only librarians and administrators send meeting notes.');
 }
 
-export function unsubscribeUrlFor(userId: string, now = Date.now()): string {
-  const token = createUnsubscribeToken(userId, unsubscribeKey(), now);
+export function unsubscribeUrlFor(userId: string, now = Date.now(), list: MailList = 'digest'): string {
+  const token = createUnsubscribeToken(userId, unsubscribeKey(), now, list);
   return `${new URL(env.NEXTAUTH_URL).origin}/unsubscribe?token=${encodeURIComponent(token)}`;
 }
 
@@ -141,8 +141,8 @@ export async function sendNoteDigest(
   return { sentAt: sendId.sentAt.toISOString(), recipients: sent, failed };
 }
 
-/** Turn the digest off for the member a valid token names; no sign-in needed. */
-export async function unsubscribeWithToken(token: string): Promise<{ email: string }> {
+/** Turn off the list (meeting notes or reminders) a valid token names, for its member; no sign-in needed. */
+export async function unsubscribeWithToken(token: string): Promise<{ email: string; list: MailList }> {
   const check = verifyUnsubscribeToken(token, unsubscribeKey());
   if (!check.ok) {
     throw check.reason === 'expired'
@@ -150,7 +150,8 @@ export async function unsubscribeWithToken(token: string): Promise<{ email: stri
       : new AppError('bad_request:token', 'This link is not valid. Sign in and turn the e-mails off on your profile page.', { token: ['Not valid'] });
   }
   const db = await getDb();
-  const [u] = await db.update(users).set({ digestOptIn: false }).where(eq(users.id, check.userId)).returning({ email: users.email });
+  const change = check.list === 'reminders' ? { reminderOptIn: false } : { digestOptIn: false };
+  const [u] = await db.update(users).set(change).where(eq(users.id, check.userId)).returning({ email: users.email });
   if (!u) throw new AppError('bad_request:token', 'This link is not valid any more.', { token: ['Unknown member'] });
-  return { email: u.email };
+  return { email: u.email, list: check.list };
 }
