@@ -2,9 +2,9 @@
 // the local mail fake in the same process (as in the server), killed with SIGKILL mid-run by the
 // parent and started again.
 //
-//   node --import tsx --require ./tests/crash/server-only-off.cjs tests/crash/reminder-worker.ts prepare <dir> <members> <weekOf>
+//   node --import tsx --require ./tests/crash/server-only-off.js tests/crash/reminder-worker.ts prepare <dir> <members> <weekOf>
 //       seed the demo club, add <members> members with reminders on and a Scots pine each, queue a run
-//   node --import tsx --require ./tests/crash/server-only-off.cjs tests/crash/reminder-worker.ts work <dir> <smtpPort>
+//   node --import tsx --require ./tests/crash/server-only-off.js tests/crash/reminder-worker.ts work <dir> <smtpPort>
 //       start the mail fake and the worker; print `progress <settled>` as members are settled,
 //       `finished` when the run is
 import fs from 'node:fs';

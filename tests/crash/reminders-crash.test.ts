@@ -30,7 +30,7 @@ const env = {
 };
 const children: Child[] = [];
 const spawn = (args: string[]) => {
-  const c = startChild(args, env, script, ['--require', path.resolve(__dirname, 'server-only-off.cjs')]);
+  const c = startChild(args, env, script, ['--require', path.resolve(__dirname, 'server-only-off.js')]);
   children.push(c);
   return c;
 };
