@@ -1,9 +1,10 @@
 import 'server-only';
 import { claimJob, completeJob, failJob, releaseOrphanedJobs, type Job } from '@/lib/data/jobs';
 import { getDbHandle } from '@/db/client';
+import { DIGEST_MEMBER_QUEUE, handleDigestMemberJob } from '@/lib/data/digests';
 import { handleMemberJob, handleRunJob, onMemberJobFailed, REMINDER_MEMBER_QUEUE, REMINDER_RUN_QUEUE } from '@/lib/data/reminders';
 
-// The queue's worker, running inside the server process: one job at a time (a small club's mail
+// The queue's worker (meeting-note digests, weekly reminders), running inside the server process: one job at a time (a small club's mail
 // does not need more, and PGlite is one connection anyway). It polls for due jobs, and wakes at
 // once when this process queues one.
 
@@ -16,6 +17,7 @@ interface Handler {
 const handlers: Record<string, Handler> = {
   [REMINDER_RUN_QUEUE]: { run: handleRunJob },
   [REMINDER_MEMBER_QUEUE]: { run: handleMemberJob, failed: onMemberJobFailed },
+  [DIGEST_MEMBER_QUEUE]: { run: handleDigestMemberJob },
 };
 
 export interface WorkerOptions {

@@ -17,7 +17,7 @@ import { jobs, outboxMessages, reminderRunMembers, reminderSends, users } from '
 import { backoffMs, claimJob, enqueue, failJob, jobState } from '@/lib/data/jobs';
 import { getReminderRun, mondayOf, reminderMessageId, startReminderRun } from '@/lib/data/reminders';
 import { thisWeek } from '@/lib/data/plan';
-import { unsubscribeWithToken, unsubscribeUrlFor } from '@/lib/data/digests';
+import { sendNoteDigest, unsubscribeWithToken, unsubscribeUrlFor } from '@/lib/data/digests';
 import { startFakeSmtp } from '@/lib/mail/fake-smtp';
 import { runOneJob } from '@/lib/queue/worker';
 import type { SessionUser } from '@/lib/auth/session';
@@ -86,6 +86,32 @@ describe('the job queue', () => {
   it('backs off 2 s, 4 s, 8 s … up to ten minutes', () => {
     expect([1, 2, 3, 4].map((a) => backoffMs(a))).toEqual([2000, 4000, 8000, 16000]);
     expect(backoffMs(30)).toBe(600_000);
+  });
+});
+
+describe('the meeting-note digest through the queue', () => {
+  it('queues one job per opted-in member with the send, and each copy is stored once, even when handed over twice', async () => {
+    const [lib] = await handle.db.select().from(users).where(eq(users.email, 'librarian@candlewise.test'));
+    const slug = '2026-04-18-spring-candle-evening';
+    const digestsTo = (email: string) =>
+      handle.db.select().from(outboxMessages).where(and(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([email])}::jsonb`, sql`${outboxMessages.subject} like '%meeting of%'`));
+    const optedIn = await handle.db.select({ email: users.email }).from(users).where(eq(users.digestOptIn, true));
+    expect(optedIn.length).toBeGreaterThanOrEqual(3);
+
+    const res = await sendNoteDigest(asActor(lib), slug, { confirm: true });
+    expect(res.recipients).toBe(optedIn.length);
+    // Nothing has gone out yet: the mail is the queue's work.
+    expect(await digestsTo(member.email)).toHaveLength(0);
+    const queued = await handle.db.select().from(jobs).where(eq(jobs.queue, 'digest.member'));
+    expect(queued).toHaveLength(optedIn.length);
+    await drain();
+    for (const { email } of optedIn) expect(await digestsTo(email), email).toHaveLength(1);
+
+    // A crash after the hand-over, before the job was marked done: the retry is stored once.
+    await handle.db.update(jobs).set({ state: 'queued', runAt: new Date(Date.now() - 1) }).where(eq(jobs.queue, 'digest.member'));
+    await drain();
+    for (const { email } of optedIn) expect(await digestsTo(email), email).toHaveLength(1);
+    expect(await digestsTo('member2@candlewise.test')).toHaveLength(0); // did not opt in
   });
 });
 
