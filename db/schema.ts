@@ -22,6 +22,8 @@ export const users = pgTable('users', {
   // Bumped on sign-out, role change and disable: tokens carrying an older version stop working.
   tokenVersion: integer('token_version').notNull().default(0),
   digestOptIn: boolean('digest_opt_in').notNull().default(false),
+  /** The weekly e-mail of this week's tasks on the member's trees (off until the member turns it on). */
+  reminderOptIn: boolean('reminder_opt_in').notNull().default(false),
   createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -82,7 +84,9 @@ export const outboxMessages = pgTable('outbox_messages', {
   html: text('html'),
   raw: text('raw').notNull(),
   receivedAt: timestamp('received_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
-}, (t) => [index('outbox_received_idx').on(t.receivedAt)]);
+  // The message's Message-ID: a message handed over again after a crash (same id) is stored once.
+  messageId: text('message_id'),
+}, (t) => [index('outbox_received_idx').on(t.receivedAt), uniqueIndex('outbox_message_id_idx').on(t.messageId)]);
 
 // Species: one row per species with the published revision's searchable fields denormalised,
 // and every revision (draft or published) kept in species_revisions.
@@ -237,3 +241,55 @@ export const treeObservations = pgTable('tree_observations', {
   task: text('task'),
   createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
 }, (t) => [index('tree_observations_tree_idx').on(t.treeId, t.observedOn)]);
+
+// The job queue (lib/queue): one row per job. A worker claims the oldest due job with
+// FOR UPDATE SKIP LOCKED and holds it for a lease; a job whose lease ran out (its worker died) is
+// claimed again. `dedupeKey` makes enqueuing the same piece of work twice a no-op.
+export const jobs = pgTable('jobs', {
+  id: serial('id').primaryKey(),
+  queue: text('queue').notNull(),
+  payload: jsonb('payload').$type<Record<string, unknown>>().notNull(),
+  state: text('state').$type<'queued' | 'active' | 'done' | 'failed'>().notNull().default('queued'),
+  attempts: integer('attempts').notNull().default(0),
+  maxAttempts: integer('max_attempts').notNull().default(5),
+  runAt: timestamp('run_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  lockedUntil: timestamp('locked_until', { mode: 'date', withTimezone: true }),
+  lastError: text('last_error'),
+  dedupeKey: text('dedupe_key'),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+  finishedAt: timestamp('finished_at', { mode: 'date', withTimezone: true }),
+}, (t) => [index('jobs_due_idx').on(t.state, t.runAt), uniqueIndex('jobs_dedupe_idx').on(t.dedupeKey)]);
+
+// A weekly reminder run an administrator started, and one ledger row per member and week: the row
+// is what makes a reminder go out at most once a week per member, however often the week is run.
+export const reminderRuns = pgTable('reminder_runs', {
+  id: text('id').primaryKey(),
+  weekOf: date('week_of').notNull(),
+  requestedBy: text('requested_by').references(() => users.id, { onDelete: 'set null' }),
+  /** Members the run looks at; null until the run has listed them. */
+  total: integer('total'),
+  createdAt: timestamp('created_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [index('reminder_runs_created_idx').on(t.createdAt)]);
+
+export const reminderSends = pgTable('reminder_sends', {
+  id: serial('id').primaryKey(),
+  weekOf: date('week_of').notNull(),
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  /** The run that settled this member's week. */
+  runId: text('run_id').notNull().references(() => reminderRuns.id, { onDelete: 'cascade' }),
+  // sending: handed to SMTP, not yet confirmed; sent; skipped (nothing due, opted out); failed.
+  state: text('state').$type<'sending' | 'sent' | 'skipped' | 'failed'>().notNull(),
+  reason: text('reason'),
+  messageId: text('message_id'),
+  tasks: integer('tasks').notNull().default(0),
+  updatedAt: timestamp('updated_at', { mode: 'date', withTimezone: true }).notNull().defaultNow(),
+}, (t) => [uniqueIndex('reminder_sends_week_user_uq').on(t.weekOf, t.userId), index('reminder_sends_run_idx').on(t.runId)]);
+
+// Which run looked at which member (a member settled by an earlier run of the same week counts as
+// skipped in the later run).
+export const reminderRunMembers = pgTable('reminder_run_members', {
+  runId: text('run_id').notNull().references(() => reminderRuns.id, { onDelete: 'cascade' }),
+  userId: text('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  outcome: text('outcome').$type<'sent' | 'skipped' | 'failed'>(),
+  reason: text('reason'),
+}, (t) => [primaryKey({ columns: [t.runId, t.userId] })]);

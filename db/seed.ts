@@ -9,8 +9,10 @@ import { seedRecord } from './seed-record';
 // The demo club is invented: a riverside pine study group with invented members.
 export const DEMO_PASSWORD = 'candlewise-demo';
 
-export const demoAccounts: { email: string; name: string; role: Role; digestOptIn: boolean }[] = [
-  { email: 'member@candlewise.test', name: 'Wren Alder', role: 'member', digestOptIn: true },
+// The demo member has the weekly reminders on: their Scots pine's candle work falls in May, so a
+// reminder run for a week in May sends them one e-mail.
+export const demoAccounts: { email: string; name: string; role: Role; digestOptIn: boolean; reminderOptIn?: boolean }[] = [
+  { email: 'member@candlewise.test', name: 'Wren Alder', role: 'member', digestOptIn: true, reminderOptIn: true },
   { email: 'member2@candlewise.test', name: 'Tamsin Reed', role: 'member', digestOptIn: false },
   { email: 'editor@candlewise.test', name: 'Osric Fenwood', role: 'editor', digestOptIn: true },
   { email: 'librarian@candlewise.test', name: 'Marla Quayle', role: 'librarian', digestOptIn: true },

@@ -10,7 +10,7 @@ function randomBase64url(bytes: number): string {
 // Every id the app hands out: how it is made and what it looks like. A value that does not look
 // like an id of its kind cannot name anything, so it is answered like an unknown one: 404.
 
-/** A short, unguessable id for URLs (96 random bits, base64url: 16 characters). Trees, photos. */
+/** A short, unguessable id for URLs (96 random bits, base64url: 16 characters). Trees, photos, reminder runs. */
 export function newPublicId(): string {
   return randomBase64url(12);
 }
@@ -29,6 +29,8 @@ export const idPatterns = {
   answer: /^[A-Za-z0-9_-]{10,32}$/,
   tree: /^[A-Za-z0-9_-]{8,40}$/,
   photo: /^[A-Za-z0-9_-]{8,40}$/,
+  /** Weekly reminder runs (newPublicId). */
+  reminder_run: /^[A-Za-z0-9_-]{8,40}$/,
   user: /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i,
 } as const;
 export type IdKind = keyof typeof idPatterns;

@@ -20,4 +20,7 @@ export async function startServer() {
     await startFakeSmtp(port);
     console.log(`[candlewise] mail fake listening on smtp://127.0.0.1:${port}`);
   }
+  // The job queue's worker (weekly reminders) runs in this process, on the same database.
+  const { startWorker } = await import('@/lib/queue/worker');
+  await startWorker();
 }

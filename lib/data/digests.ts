@@ -1,4 +1,5 @@
 import 'server-only';
+import { createHash } from 'node:crypto';
 import { and, count, desc, eq } from 'drizzle-orm';
 import { getDb } from '@/db/client';
 import { digestSends, notes, users } from '@/db/schema';
@@ -7,15 +8,17 @@ import { env } from '@/lib/env';
 import { unsubscribeKey } from '@/lib/auth/secret';
 import { sendMail } from '@/lib/mail/transport';
 import { renderDigest } from '@/lib/mail/digest';
-import { createUnsubscribeToken, verifyUnsubscribeToken } from '@/lib/mail/unsubscribe';
+import { createUnsubscribeToken, verifyUnsubscribeToken, type MailList } from '@/lib/mail/unsubscribe';
 import { getNote } from '@/lib/data/notes';
 import { renderNoteWithLinks } from '@/lib/data/note-render';
 import { getClubSettings } from '@/lib/data/settings';
+import { enqueue, notifyQueued, type Job } from '@/lib/data/jobs';
 import type { SessionUser } from '@/lib/auth/session';
 import { assertRole } from '@/lib/auth/roles';
 
 // The e-mail digest: a published note sent to every active member who opted in, one message
-// each (each carries its own unsubscribe link), every send recorded in digest_sends.
+// each (each carries its own unsubscribe link), every send recorded in digest_sends. The
+// messages go out through the job queue (lib/data/jobs.ts), one job per member.
 
 export interface DigestSendDto {
   sentAt: string;
@@ -38,8 +41,8 @@ function requireWriter(actor: SessionUser) {
   assertRole(actor, 'librarian', 'notes', 'Only librarians and administrators send meeting notes.');
 }
 
-export function unsubscribeUrlFor(userId: string, now = Date.now()): string {
-  const token = createUnsubscribeToken(userId, unsubscribeKey(), now);
+export function unsubscribeUrlFor(userId: string, now = Date.now(), list: MailList = 'digest'): string {
+  const token = createUnsubscribeToken(userId, unsubscribeKey(), now, list);
   return `${new URL(env.NEXTAUTH_URL).origin}/unsubscribe?token=${encodeURIComponent(token)}`;
 }
 
@@ -104,7 +107,8 @@ export async function sendNoteDigest(
   const recipients = await db.select({ id: users.id, email: users.email }).from(users).where(optedIn).orderBy(users.email);
 
   // Claim the send in a short transaction (the note row locked, so two librarians clicking at
-  // once cannot both send); the mail goes out after it commits, never while a lock is held.
+  // once cannot both send), queuing one job per member in it; the job queue sends the mail after
+  // it commits, retrying with backoff, never while a lock is held.
   const sendId = await db.transaction(async (tx) => {
     await tx.select({ id: notes.id }).from(notes).where(eq(notes.id, note.id)).for('update');
     const [prev] = await tx
@@ -118,31 +122,58 @@ export async function sendNoteDigest(
       throw new DigestAlreadySentError({ sentAt: prev.sentAt.toISOString(), recipients: prev.recipients, senderName: prev.senderName?.trim() || 'A former member' });
     }
     const [row] = await tx.insert(digestSends).values({ noteId: note.id, senderId: actor.id, recipients: recipients.length }).returning({ id: digestSends.id, sentAt: digestSends.sentAt });
+    // One job per member, committed with the send: the server's queue delivers them.
+    for (const r of recipients) {
+      await enqueue(DIGEST_MEMBER_QUEUE, { sendId: row.id, userId: r.id }, { dedupeKey: `digest:${row.id}:${r.id}` }, tx);
+    }
     return row;
   });
 
-  const [settings, { html, resolutions }] = await Promise.all([getClubSettings(), renderNoteWithLinks(note.body)]);
-  const baseUrl = new URL(env.NEXTAUTH_URL).origin;
-
-  let sent = 0;
-  let failed = 0;
-  for (const r of recipients) {
-    const unsubscribeUrl = unsubscribeUrlFor(r.id);
-    try {
-      const mail = await renderDigest({ clubName: settings.clubName, baseUrl, note, html, resolutions, unsubscribeUrl });
-      await sendMail({ to: r.email, ...mail });
-      sent++;
-    } catch (e) {
-      failed++;
-      console.error('[candlewise] digest mail failed', e instanceof Error ? e.message : e);
-    }
-  }
-  await db.update(digestSends).set({ recipients: sent }).where(eq(digestSends.id, sendId.id));
-  return { sentAt: sendId.sentAt.toISOString(), recipients: sent, failed };
+  notifyQueued();
+  return { sentAt: sendId.sentAt.toISOString(), recipients: recipients.length, failed: 0 };
 }
 
-/** Turn the digest off for the member a valid token names; no sign-in needed. */
-export async function unsubscribeWithToken(token: string): Promise<{ email: string }> {
+export const DIGEST_MEMBER_QUEUE = 'digest.member';
+
+/** The Message-ID of one member's copy of one send: the same on every hand-over. */
+function digestMessageId(sendId: number, userId: string): string {
+  const host = new URL(env.NEXTAUTH_URL).hostname || 'candlewise.invalid';
+  return `<digest.${sendId}.${createHash('sha256').update(userId).digest('hex').slice(0, 24)}@${host}>`;
+}
+
+/**
+ * Job: one member's copy of a send. Read as that member sees the note (a note unpublished since
+ * is not sent), skipped if they turned the notes off meanwhile; a retry after a crash hands the
+ * message over with the same Message-ID, which the outbox stores once.
+ */
+export async function handleDigestMemberJob(job: Job) {
+  const sendId = Number(job.payload.sendId);
+  const userId = String(job.payload.userId);
+  const db = await getDb();
+  const [row] = await db
+    .select({ slug: notes.slug, id: users.id, name: users.name, email: users.email, role: users.role, tokenVersion: users.tokenVersion, digestOptIn: users.digestOptIn, disabled: users.disabled })
+    .from(digestSends)
+    .innerJoin(notes, eq(notes.id, digestSends.noteId))
+    .innerJoin(users, eq(users.id, userId))
+    .where(eq(digestSends.id, sendId))
+    .limit(1);
+  if (!row || !row.digestOptIn || row.disabled) return;
+  const member: SessionUser = { id: row.id, name: row.name ?? '', email: row.email, role: row.role, tokenVersion: row.tokenVersion };
+  let note;
+  try {
+    note = await getNote(member, row.slug);
+  } catch (e) {
+    if (e instanceof AppError && e.status === 404) return;
+    throw e;
+  }
+  const [settings, { html, resolutions }] = await Promise.all([getClubSettings(), renderNoteWithLinks(note.body)]);
+  const baseUrl = new URL(env.NEXTAUTH_URL).origin;
+  const mail = await renderDigest({ clubName: settings.clubName, baseUrl, note, html, resolutions, unsubscribeUrl: unsubscribeUrlFor(member.id) });
+  await sendMail({ to: member.email, ...mail, messageId: digestMessageId(sendId, member.id) });
+}
+
+/** Turn off the list (meeting notes or reminders) a valid token names, for its member; no sign-in needed. */
+export async function unsubscribeWithToken(token: string): Promise<{ email: string; list: MailList }> {
   const check = verifyUnsubscribeToken(token, unsubscribeKey());
   if (!check.ok) {
     throw check.reason === 'expired'
@@ -150,7 +181,8 @@ export async function unsubscribeWithToken(token: string): Promise<{ email: stri
       : new AppError('bad_request:token', 'This link is not valid. Sign in and turn the e-mails off on your profile page.', { token: ['Not valid'] });
   }
   const db = await getDb();
-  const [u] = await db.update(users).set({ digestOptIn: false }).where(eq(users.id, check.userId)).returning({ email: users.email });
+  const change = check.list === 'reminders' ? { reminderOptIn: false } : { digestOptIn: false };
+  const [u] = await db.update(users).set(change).where(eq(users.id, check.userId)).returning({ email: users.email });
   if (!u) throw new AppError('bad_request:token', 'This link is not valid any more.', { token: ['Unknown member'] });
-  return { email: u.email };
+  return { email: u.email, list: check.list };
 }

@@ -75,14 +75,17 @@ export interface WeekItem {
   window: PlanWindow;
 }
 
-/** Every tree's tasks open now or due within 14 days. */
-export async function thisWeek(actor: SessionUser, today = todayIso()): Promise<WeekItem[]> {
+/**
+ * Every tree's tasks open now or due within `days` days (14 on the member's home; the weekly
+ * reminder asks for the 7 days of its week).
+ */
+export async function thisWeek(actor: SessionUser, today = todayIso(), days = 14): Promise<WeekItem[]> {
   const trees = await listTrees(actor);
   const items: WeekItem[] = [];
   for (const tree of trees.slice(0, 100)) {
     const plan = await planFor(actor, tree, today);
     if (!plan) continue;
-    for (const w of dueSoon(plan, today)) items.push({ treeId: tree.id, treeName: tree.name, speciesSlug: tree.speciesSlug, window: w });
+    for (const w of dueSoon(plan, today, days)) items.push({ treeId: tree.id, treeName: tree.name, speciesSlug: tree.speciesSlug, window: w });
   }
   return items.sort((a, b) => (a.window.from < b.window.from ? -1 : a.window.from > b.window.from ? 1 : a.treeName.localeCompare(b.treeName)));
 }

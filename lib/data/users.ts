@@ -14,6 +14,7 @@ export interface UserDto {
   role: Role;
   disabled: boolean;
   digestOptIn: boolean;
+  reminderOptIn: boolean;
   createdAt: string;
 }
 
@@ -24,6 +25,7 @@ const dtoColumns = {
   role: users.role,
   disabled: users.disabled,
   digestOptIn: users.digestOptIn,
+  reminderOptIn: users.reminderOptIn,
   createdAt: users.createdAt,
 };
 
@@ -122,7 +124,7 @@ export async function getProfile(actor: SessionUser): Promise<UserDto> {
   return toDto(u);
 }
 
-export async function updateProfile(actor: SessionUser, patch: { name?: string; digestOptIn?: boolean }) {
+export async function updateProfile(actor: SessionUser, patch: { name?: string; digestOptIn?: boolean; reminderOptIn?: boolean }) {
   // An empty patch changes nothing (and an UPDATE with no columns is an SQL error, not a 500 to show).
   if (Object.values(patch).every((v) => v === undefined)) return getProfile(actor);
   const db = await getDb();

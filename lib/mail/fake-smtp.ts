@@ -10,6 +10,8 @@ const MAX_MESSAGE_BYTES = 5 * 1024 * 1024;
 /**
  * A local SMTP server for development, demo and tests: it accepts every message on 127.0.0.1
  * and stores it in the outbox table, where administrators read it. It never relays anything.
+ * A message whose Message-ID is already stored (the same mail handed over again after a crash
+ * between the hand-over and its bookkeeping) is accepted and not stored twice.
  */
 export async function startFakeSmtp(port: number): Promise<SMTPServer> {
   if (g.__cwFakeSmtp) return g.__cwFakeSmtp;
@@ -33,7 +35,8 @@ export async function startFakeSmtp(port: number): Promise<SMTPServer> {
             text: parsed.text ?? null,
             html: typeof parsed.html === 'string' ? parsed.html : null,
             raw,
-          });
+            messageId: parsed.messageId ?? null,
+          }).onConflictDoNothing({ target: outboxMessages.messageId });
           callback();
         } catch (e) {
           callback(e as Error);

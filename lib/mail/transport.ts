@@ -14,6 +14,8 @@ export interface OutgoingMail {
   text: string;
   html: string;
   headers?: Record<string, string>;
+  /** A fixed Message-ID (`<…@…>`): a message handed over again after a crash carries the same one. */
+  messageId?: string;
 }
 
 export async function sendMail(mail: OutgoingMail) {

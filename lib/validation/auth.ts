@@ -34,6 +34,7 @@ export const userPatchSchema = z
 export const profilePatchSchema = z.object({
   name: z.string().trim().min(1).max(80).optional(),
   digestOptIn: z.boolean().optional(),
+  reminderOptIn: z.boolean().optional(),
 });
 
 export const settingsSchema = z.object({

@@ -17,8 +17,8 @@ export interface Child {
   exited: Promise<{ code: number | null; signal: NodeJS.Signals | null }>;
 }
 
-export function startChild(args: string[], env: Record<string, string> = {}): Child {
-  const proc = spawn(process.execPath, ['--import', 'tsx', '--conditions=react-server', writerScript, ...args], {
+export function startChild(args: string[], env: Record<string, string> = {}, script = writerScript, nodeArgs = ['--conditions=react-server']): Child {
+  const proc = spawn(process.execPath, ['--import', 'tsx', ...nodeArgs, script, ...args], {
     cwd: root,
     env: { ...process.env, ...env },
     stdio: ['ignore', 'pipe', 'pipe'],

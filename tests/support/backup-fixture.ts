@@ -1,8 +1,8 @@
 import { sql } from 'drizzle-orm';
 import type { Db } from '@/db/open';
 import {
-  answers, digestSends, noteLinks, notes, outboxMessages, photos, species, speciesRevisions, temperatureDays, temperatureRecords, treeObservations, trees,
-  pendingSignUps, users, verificationTokens,
+  answers, digestSends, jobs, noteLinks, notes, outboxMessages, pendingSignUps, photos, reminderRunMembers, reminderRuns, reminderSends, species, speciesRevisions,
+  temperatureDays, temperatureRecords, treeObservations, trees, users, verificationTokens,
 } from '@/db/schema';
 
 // Rows in every table, with the values a dump most easily gets wrong: quotes, backslashes,
@@ -74,4 +74,8 @@ export async function fillAwkwardRows(db: Db) {
   await db.delete(outboxMessages).where(sql`${outboxMessages.id} = (select min(id) from outbox_messages)`);
   await db.insert(verificationTokens).values({ identifier: 'awkward1@candlewise.test', token: 'hashed-token', expires: new Date('2026-12-02T06:00:00.000Z') });
   await db.insert(pendingSignUps).values({ tokenHash: 'a'.repeat(64), email: 'awkward3@candlewise.test', name: awkward, passwordHash: '$2b$10$notarealhashnotarealhashnotarealhashnotarealhashnot', expiresAt: new Date('2026-12-03T06:00:00.123Z') });
+  await db.insert(jobs).values({ queue: 'reminders.member', payload: { runId: 'run-awkward', note: awkward, nested: { a: [1, null] } }, lastError: awkward, dedupeKey: awkward });
+  await db.insert(reminderRuns).values({ id: 'run-awkward', weekOf: '2027-05-10', requestedBy: 'u-awkward-2', total: 1 });
+  await db.insert(reminderRunMembers).values({ runId: 'run-awkward', userId: 'u-awkward-1', outcome: 'sent', reason: null });
+  await db.insert(reminderSends).values({ weekOf: '2027-05-10', userId: 'u-awkward-1', runId: 'run-awkward', state: 'sent', messageId: '<reminder.awkward@candlewise.test>', tasks: 2, reason: awkward });
 }

@@ -81,7 +81,7 @@ describe('unsubscribe token', () => {
 
   it('a fresh token names its member', () => {
     const t = createUnsubscribeToken('user-123', SECRET, now);
-    expect(verifyUnsubscribeToken(t, SECRET, now + 1000)).toEqual({ ok: true, userId: 'user-123' });
+    expect(verifyUnsubscribeToken(t, SECRET, now + 1000)).toEqual({ ok: true, userId: 'user-123', list: 'digest' });
   });
 
   it('a tampered payload, a swapped signature or another secret is refused', () => {

@@ -13,7 +13,7 @@ export default async function ProfilePage() {
     <div className="max-w-xl space-y-6">
       <h1 className="page-title">Your profile</h1>
       <p className="text-stone-700">{profile.email} · {roleLabels[profile.role]}</p>
-      <ProfileForm initial={{ name: profile.name ?? '', digestOptIn: profile.digestOptIn }} />
+      <ProfileForm initial={{ name: profile.name ?? '', digestOptIn: profile.digestOptIn, reminderOptIn: profile.reminderOptIn }} />
     </div>
   );
 }

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { parseWith, route } from '@/lib/http/route';
 import { unsubscribeWithToken } from '@/lib/data/digests';
 
-// Turns the meeting-notes e-mail off for the member the signed token names. No sign-in: the
+// Turns the meeting-notes e-mail or the weekly reminder off for the member the signed token names. No sign-in: the
 // token is the proof. Also the one-click target of the List-Unsubscribe header (RFC 8058),
 // which mail providers POST to with the token in the query.
 const tokenSchema = z.object({ token: z.string().min(10, { error: 'The link is incomplete.' }).max(600) });
@@ -17,6 +17,6 @@ export const POST = route(async (req) => {
     token = body !== null && typeof body === 'object' ? (body as { token?: unknown }).token : undefined;
   }
   const input = parseWith(tokenSchema, { token }, 400);
-  const { email } = await unsubscribeWithToken(input.token);
-  return NextResponse.json({ ok: true, email });
+  const { email, list } = await unsubscribeWithToken(input.token);
+  return NextResponse.json({ ok: true, email, list });
 });

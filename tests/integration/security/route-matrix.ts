@@ -23,6 +23,12 @@ async function throwawayUserId(f: Fixtures) {
   return (await f.newMember('target')).id;
 }
 
+/** A reminder run, queued by the admin. */
+async function reminderRunId(f: Fixtures) {
+  const r = await (await f.client('admin')).json('/api/admin/reminders/run', 'POST', { weekOf: '2020-01-06' });
+  return r.body.run.id as string;
+}
+
 async function csrfOf(c: Client) {
   return c.csrf();
 }
@@ -39,6 +45,16 @@ export const routeMatrix: RouteRow[] = [
     fuzz: { as: 'member', restore: async (f) => void (await (await f.client('member')).json('/api/me', 'PATCH', { name: 'Wren Alder', digestOptIn: true })) },
   },
   { route: 'GET /api/outbox', file: 'app/api/outbox/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/outbox?limit=5' }), expect: atLeast('admin', 200) },
+  // Weekly reminders (a week long past, so the matrix's runs send nothing due today)
+  {
+    route: 'POST /api/admin/reminders/run', file: 'app/api/admin/reminders/run/route.ts', method: 'POST', kind: 'api', body: 'json',
+    request: () => ({ path: '/api/admin/reminders/run', json: { weekOf: '2020-01-06' } }), expect: atLeast('admin', 202), fuzz: { as: 'admin' },
+  },
+  { route: 'GET /api/admin/reminders/runs', file: 'app/api/admin/reminders/runs/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/admin/reminders/runs' }), expect: atLeast('admin', 200) },
+  {
+    route: 'GET /api/admin/reminders/runs/[id]', file: 'app/api/admin/reminders/runs/[id]/route.ts', method: 'GET', kind: 'api', body: 'none',
+    request: async (f) => ({ path: `/api/admin/reminders/runs/${await reminderRunId(f)}` }), expect: atLeast('admin', 200),
+  },
   { route: 'GET /api/settings', file: 'app/api/settings/route.ts', method: 'GET', kind: 'api', body: 'none', request: () => ({ path: '/api/settings' }), expect: every(200) },
   {
     route: 'PUT /api/settings', file: 'app/api/settings/route.ts', method: 'PUT', kind: 'api', body: 'json',

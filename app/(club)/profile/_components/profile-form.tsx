@@ -5,7 +5,7 @@ import { useState } from 'react';
 import { profilePatchSchema } from '@/lib/validation/auth';
 import { sendJson } from '@/components/fetcher';
 
-type Values = { name?: string; digestOptIn?: boolean };
+type Values = { name?: string; digestOptIn?: boolean; reminderOptIn?: boolean };
 
 export function ProfileForm({ initial }: { initial: Values }) {
   const [status, setStatus] = useState('');
@@ -31,6 +31,10 @@ export function ProfileForm({ initial }: { initial: Values }) {
       <label className="flex min-h-target items-center gap-3">
         <input type="checkbox" className="h-5 w-5" {...register('digestOptIn')} />
         <span>Send me meeting notes by e-mail when the librarian publishes them</span>
+      </label>
+      <label className="flex min-h-target items-center gap-3">
+        <input type="checkbox" className="h-5 w-5" {...register('reminderOptIn')} data-testid="reminder-opt-in" />
+        <span>Send me a weekly e-mail of the tasks due on my trees</span>
       </label>
       <div className="flex items-center gap-3">
         <button type="submit" className="btn-primary" disabled={isSubmitting}>Save</button>
