@@ -23,7 +23,7 @@ export function SaveAnswer({
   }
   if (saved) {
     return (
-      <section className="card border-moss-300 bg-moss-50" role="status" data-testid="saved">
+      <section className="card border-moss-300 bg-moss-50" role="status" data-testid="saved" tabIndex={-1}>
         <p className="text-lg font-semibold">Saved to your answers.</p>
         <Link className="btn-primary mt-3" href={saved.url}>Open the saved answer</Link>
       </section>
@@ -38,6 +38,8 @@ export function SaveAnswer({
       }}
     >
       <h3 className="text-lg">Save this answer</h3>
+      <details>
+        <summary className="flex min-h-target cursor-pointer items-center font-medium text-moss-700">Add a note or share with the club</summary>
       <div>
         <label htmlFor="save-note" className="field-label">Note (optional)</label>
         <textarea id="save-note" className="field-input" rows={2} maxLength={2000} value={note} onChange={(e) => setNote(e.target.value)} placeholder="e.g. the long shoot on the south side" />
@@ -49,7 +51,8 @@ export function SaveAnswer({
           <option value="club">Shared with the club</option>
         </select>
       </div>
-      {error && <p role="alert" className="field-error">{error}</p>}
+      </details>
+      {error && <p role="alert" className="field-error" tabIndex={-1}>{error}</p>}
       <button type="submit" className="btn-primary w-full text-lg" disabled={saving}>{saving ? 'Saving…' : 'Save answer'}</button>
     </form>
   );
