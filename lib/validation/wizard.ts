@@ -86,9 +86,11 @@ export const patchAnswerSchema = z
     followUp: z.string().trim().max(4000).optional(),
     note: z.string().trim().max(2000).optional(),
     visibility: z.enum(visibilities).optional(),
+    /** Attach the answer to one of your trees later, or detach it (null). */
+    treeId: z.string().trim().min(1).max(64).nullable().optional(),
   })
   .strict()
-  .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one of followUp, note, visibility.' });
+  .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one of followUp, note, visibility, treeId.' });
 
 export const listAnswersQuerySchema = z.object({
   cursor: z.string().max(200).optional(),
