@@ -144,12 +144,12 @@ describe('the answer log', () => {
     const attached = await m.json(path, 'PATCH', { treeId: tree.id });
     expect(attached.status).toBe(200);
     expect(attached.body.treeId).toBe(tree.id);
-    const refused = await m.json(path, 'PATCH', { treeId: theirs.body.id });
+    const refused = await m.json(path, 'PATCH', { treeId: theirs.body.tree.id });
     expect(refused.status).toBe(400);
     expect(refused.body.error.fields.treeId).toBeDefined();
     expect((await m.json(path, 'GET')).body.treeId).toBe(tree.id);
     // Someone else cannot attach your answer to their tree either: it is not theirs to know about.
-    expect((await other.json(path, 'PATCH', { treeId: theirs.body.id })).status).toBe(404);
+    expect((await other.json(path, 'PATCH', { treeId: theirs.body.tree.id })).status).toBe(404);
     const detached = await m.json(path, 'PATCH', { treeId: null });
     expect(detached.body.treeId).toBeNull();
   });
