@@ -18,10 +18,12 @@ const actionTone: Record<WizardResult['action'], string> = {
 function Section({ title, testId, open, tone = 'card', children, count }: { title: string; testId: string; open?: boolean; tone?: 'card' | 'caution'; children: ReactNode; count?: number }) {
   const box = tone === 'caution' ? 'rounded-card border-2 border-sun-500 bg-sun-100 p-4 sm:p-6' : 'card';
   return (
-    <details className={box} data-testid={testId} open={open}>
-      <summary className={`flex min-h-target cursor-pointer items-center gap-2 font-display text-lg ${tone === 'caution' ? 'text-sun-700' : 'text-moss-900'}`}>
+    <details className={`group ${box}`} data-testid={testId} open={open}>
+      <summary className={`flex min-h-target cursor-pointer list-none items-center gap-2 font-display text-lg [&::-webkit-details-marker]:hidden ${tone === 'caution' ? 'text-sun-700' : 'text-moss-900'}`}>
         {title}
         {count ? <span className="font-sans text-sm text-stone-700">({count})</span> : null}
+        <span aria-hidden="true" className="ml-auto font-sans text-sm text-moss-700 group-open:hidden">Show ▾</span>
+        <span aria-hidden="true" className="ml-auto hidden font-sans text-sm text-moss-700 group-open:inline">Hide ▴</span>
       </summary>
       <div className="mt-2">{children}</div>
     </details>
@@ -81,7 +83,7 @@ export function AnswerResult({ result, actions, after }: { result: WizardResult;
           ))}
         </ol>
         <details className="mt-3" data-testid="rule-details">
-          <summary className="flex min-h-target cursor-pointer items-center text-sm font-medium text-moss-700">Details for checking</summary>
+          <summary className="min-h-target cursor-pointer py-2.5 text-sm font-medium text-moss-700">Details for checking</summary>
           <p className="text-sm text-stone-700">Rules applied, in order: {result.reasons.map((r, i) => <span key={r.rule}>{i ? ', ' : ''}<code>{r.rule}</code></span>)}. Engine {result.engineVersion}, species revision {result.speciesRevision}.</p>
         </details>
       </Section>
@@ -107,7 +109,7 @@ export function AnswerResult({ result, actions, after }: { result: WizardResult;
           <dt className="font-medium text-stone-700">Foliar feed</dt><dd>{f.foliar ? 'Yes: fish emulsion or kelp, as the label directs' : 'No'}</dd>
         </dl>
         <details className="mt-3">
-          <summary className="flex min-h-target cursor-pointer items-center font-medium text-moss-700">Why this plan</summary>
+          <summary className="min-h-target cursor-pointer py-2.5 font-medium text-moss-700">Why this plan</summary>
           <ul className="mt-2 space-y-2">
             {f.reasons.map((r) => <li key={r.rule}>{r.text} <span className="text-sm text-stone-700">({r.source})</span></li>)}
           </ul>
@@ -119,7 +121,7 @@ export function AnswerResult({ result, actions, after }: { result: WizardResult;
           <div className="space-y-1">
             {terms.map((t) => (
               <details key={t.term} className="rounded-lg border border-stone-200 px-3">
-                <summary className="flex min-h-target cursor-pointer items-center font-semibold capitalize">{t.term}</summary>
+                <summary className="min-h-target cursor-pointer py-2.5 font-semibold capitalize">{t.term}</summary>
                 <div className="pb-2"><TermExplanation term={t} /></div>
               </details>
             ))}

@@ -162,6 +162,14 @@ export function toEvaluateBody(a: AskAnswers): EvaluateBody {
   return body;
 }
 
+/**
+ * A run carried on (after a reload or sign-in) that never answered the tree question was begun
+ * without trees to pick from: it is about "not one of mine", so it does not open at the tree question.
+ */
+export function resumedAnswers(a: AskAnswers, f: Flow = {}): AskAnswers {
+  return f.hasTrees && a.species && !a.tree ? { ...a, tree: NOT_MINE } : a;
+}
+
 /** The answers after picking a tree (or "not one of mine"): the tree's species, pot and collection replace the last tree's. */
 export function answersForTree(a: AskAnswers, tree: TreeOption | null): AskAnswers {
   const { treeSpecies: _s, container: _c, recentlyCollected: _r, ...rest } = a;

@@ -2,7 +2,7 @@ import { assign, fromPromise, setup } from 'xstate';
 import type { EvaluateBody } from '@/lib/validation/wizard';
 import type { WizardResult } from './types';
 import {
-  answersForTree, canReach, firstOpenStep, firstStep, isAnswered, isRelevant, nextStep, NOT_MINE, prevStep, toEvaluateBody,
+  answersForTree, canReach, resumedAnswers, firstOpenStep, firstStep, isAnswered, isRelevant, nextStep, NOT_MINE, prevStep, toEvaluateBody,
   type AskAnswers, type AskStep, type Flow, type TreeOption,
 } from './ask-steps';
 import type { StoredRun } from './ask-resume';
@@ -120,7 +120,7 @@ export const askMachine = setup({
       const run = context.resume;
       if (!run) return {};
       const treeId = run.treeId && context.trees.some((t) => t.id === run.treeId) ? run.treeId : undefined;
-      const answers = { ...run.answers };
+      const answers = resumedAnswers({ ...run.answers }, flowOf(context));
       // A tree that is no longer the member's is not offered back.
       if (answers.tree && answers.tree !== NOT_MINE && !treeId) delete answers.tree;
       return { answers, treeId, step: openingStep(answers, flowOf(context), run.step), resume: null };

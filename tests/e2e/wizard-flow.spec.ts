@@ -95,6 +95,7 @@ test.describe('the wizard flow on a phone', () => {
     const save = page.getByRole('button', { name: 'Save answer' });
     await expect(save).toBeInViewport({ ratio: 1 });
     await expect(page.getByTestId('ask-done')).toBeInViewport({ ratio: 1 });
+    await page.screenshot({ path: screenshotPath('flow-360-answer-top'), fullPage: false });
     for (const id of ['why', 'cautions', 'feeding', 'calculator-section']) {
       await expect(page.getByTestId(id)).not.toHaveAttribute('open', '');
     }

@@ -33,9 +33,6 @@ export default async function AskPage({ searchParams }: { searchParams: Promise<
       </div>
       <Suspense fallback={<p className="text-stone-700">Loading the questions…</p>}>
         <AskWizard
-          // A new key per server render: following a start link while already on /ask (the header's
-          // Ask) mounts a new wizard that starts fresh; changing steps never renders on the server.
-          key={crypto.randomUUID()}
           species={species}
           prefill={prefill}
           trees={trees}

@@ -286,6 +286,14 @@ describe('ask machine: fresh start, the offer to continue, and start over', () =
     expect(actor.getSnapshot().context.answers).toEqual({ date: '2027-05-10' });
   });
 
+  it('carries on a run begun without trees (before signing in) past the tree question', async () => {
+    const { actor } = start({ trees: wrenTrees, today: '2027-05-10', resume: { ...run, step: 'answer' } });
+    actor.send({ type: 'CONTINUE' });
+    const s = await waitFor(actor, (x) => x.matches('answer'));
+    expect(s.context.answers.tree).toBe('none');
+    expect(s.context.treeId).toBeUndefined();
+  });
+
   it('drops a tree from the offered run that is no longer the member’s', () => {
     const { actor } = start({ resume: { ...run, answers: { ...run.answers, tree: 'tree-gone', treeSpecies: 'pinus-sylvestris' }, treeId: 'tree-gone' }, trees: wrenTrees });
     actor.send({ type: 'CONTINUE' });

@@ -5,7 +5,7 @@ import { useSearchParams } from 'next/navigation';
 import { useMachine } from '@xstate/react';
 import { fromPromise } from 'xstate';
 import {
-  askMachine, askSteps, disabledReason, firstStep, questionList, type AskAnswers, type AskInput, type AskStep, type SaveRequest, type TreeOption,
+  askMachine, askSteps, disabledReason, firstStep, questionList, resumedAnswers, type AskAnswers, type AskInput, type AskStep, type SaveRequest, type TreeOption,
 } from '@/lib/wizard/ask.machine';
 import { bootPlan, freshParams, isUnfinished, resumeQuestion, type StoredRun } from '@/lib/wizard/ask-resume';
 import type { EvaluateBody } from '@/lib/validation/wizard';
@@ -92,7 +92,7 @@ export function AskWizard(props: AskWizardProps) {
       forget();
       setBoot({ ...base, answers: { date: props.today, ...props.prefill }, treeId: props.treeId, step });
     } else if (plan === 'resume') {
-      setBoot({ ...base, answers: stored!.answers, treeId: stored!.treeId, step });
+      setBoot({ ...base, answers: resumedAnswers(stored!.answers, { hasTrees: props.trees.length > 0 }), treeId: stored!.treeId, step });
     } else {
       setBoot({ ...base, answers: { date: props.today }, resume: stored });
     }
@@ -151,6 +151,23 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
     }
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [urlStep]);
+
+  // The header's Ask followed while already on /ask: the same wizard starts again, fresh.
+  const startParam = params.get('start');
+  const bootStart = useRef(startParam);
+  useEffect(() => {
+    if (!startParam) {
+      bootStart.current = null;
+      return;
+    }
+    if (bootStart.current) return; // the start link this wizard was opened with
+    send({ type: 'RESTART' });
+    forget();
+    const current = new URLSearchParams(window.location.search);
+    current.delete('start');
+    window.history.replaceState(null, '', `${window.location.pathname}?${current.toString()}`);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [startParam]);
 
   const set = (a: Partial<AskAnswers>) => send({ type: 'SET', answers: a });
   const flow = { hasTrees: trees.length > 0 };
@@ -250,8 +267,8 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
                 </div>
               }
               after={
-                <details className="card group" data-testid="calculator-section">
-                  <summary className="flex min-h-target cursor-pointer items-center font-display text-lg text-moss-900">Liquid feed calculator</summary>
+                <details className="card" data-testid="calculator-section">
+                  <summary className="min-h-target cursor-pointer py-2 font-display text-lg text-moss-900">Liquid feed calculator</summary>
                   <div className="mt-3"><LiquidFeedCalculator /></div>
                 </details>
               }

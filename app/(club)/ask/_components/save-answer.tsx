@@ -39,7 +39,7 @@ export function SaveAnswer({
     >
       <h3 className="text-lg">Save this answer</h3>
       <details>
-        <summary className="flex min-h-target cursor-pointer items-center font-medium text-moss-700">Add a note or share with the club</summary>
+        <summary className="min-h-target cursor-pointer py-2.5 font-medium text-moss-700">Add a note or share with the club</summary>
       <div>
         <label htmlFor="save-note" className="field-label">Note (optional)</label>
         <textarea id="save-note" className="field-input" rows={2} maxLength={2000} value={note} onChange={(e) => setNote(e.target.value)} placeholder="e.g. the long shoot on the south side" />
