@@ -22,7 +22,7 @@ export default async function HomePage() {
       </section>
       {week ? <ThisWeek items={week} today={today} /> : null}
       <section aria-label="Start here" className="grid gap-4 sm:grid-cols-2">
-        <Link href="/ask" className="card block no-underline hover:border-moss-400" data-testid="door-ask">
+        <Link href="/ask?start=new" className="card block no-underline hover:border-moss-400" data-testid="door-ask">
           <h2 className="text-xl">Ask about a shoot</h2>
           <p className="mt-2 text-stone-700">Answer a few questions standing at the tree and get one clear action.</p>
           <span className="btn-primary mt-4">Start</span>

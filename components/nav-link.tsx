@@ -4,7 +4,8 @@ import { usePathname } from 'next/navigation';
 
 export function NavLink({ href, children }: { href: string; children: React.ReactNode }) {
   const pathname = usePathname();
-  const active = pathname === href || pathname.startsWith(`${href}/`);
+  const path = href.split('?')[0];
+  const active = pathname === path || pathname.startsWith(`${path}/`);
   return (
     <Link
       href={href}

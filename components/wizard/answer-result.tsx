@@ -1,9 +1,13 @@
+import type { ReactNode } from 'react';
 import type { WizardResult } from '@/lib/wizard/types';
 import { candleKeepText } from '@/lib/wizard/candle-keep';
+import { TermExplanation, TermText } from './term-text';
 
 const capitalise = (t: string) => t.charAt(0).toUpperCase() + t.slice(1);
 
-// The answer, shown the same way in the wizard and on a saved answer's page.
+// The answer, shown the same way in the wizard and on a saved answer's page. On a phone the action,
+// what to keep and the page's own buttons (`actions`) come first; everything else follows in
+// sections that open with one tap.
 
 const stageLabel = { development: 'Development', refinement: 'Refinement', recovery: 'Recovery' } as const;
 const seasonLabel = { winter: 'Winter', spring: 'Spring', summer: 'Summer', autumn: 'Autumn' } as const;
@@ -11,81 +15,87 @@ const actionTone: Record<WizardResult['action'], string> = {
   pinch: 'bg-moss-700', prune: 'bg-bark-700', decandle: 'bg-bark-800', 'let-grow': 'bg-moss-600', thin: 'bg-moss-800', wait: 'bg-stone-700',
 };
 
-export function AnswerResult({ result }: { result: WizardResult }) {
-  const f = result.fertilizer;
+function Section({ title, testId, open, tone = 'card', children, count }: { title: string; testId: string; open?: boolean; tone?: 'card' | 'caution'; children: ReactNode; count?: number }) {
+  const box = tone === 'caution' ? 'rounded-card border-2 border-sun-500 bg-sun-100 p-4 sm:p-6' : 'card';
   return (
-    <div className="space-y-5">
-      <section className={`rounded-card p-5 text-white ${actionTone[result.action]}`} data-testid="answer-action" aria-labelledby="answer-headline">
+    <details className={`group ${box}`} data-testid={testId} open={open}>
+      <summary className={`flex min-h-target cursor-pointer list-none items-center gap-2 font-display text-lg [&::-webkit-details-marker]:hidden ${tone === 'caution' ? 'text-sun-700' : 'text-moss-900'}`}>
+        {title}
+        {count ? <span className="font-sans text-sm text-stone-700">({count})</span> : null}
+        <span aria-hidden="true" className="ml-auto font-sans text-sm text-moss-700 group-open:hidden">Show ▾</span>
+        <span aria-hidden="true" className="ml-auto hidden font-sans text-sm text-moss-700 group-open:inline">Hide ▴</span>
+      </summary>
+      <div className="mt-2">{children}</div>
+    </details>
+  );
+}
+
+export function AnswerResult({ result, actions, after }: { result: WizardResult; actions?: ReactNode; after?: ReactNode }) {
+  const f = result.fertilizer;
+  const terms = result.terms;
+  const headline = result.action === 'pinch' || result.action === 'prune' ? result.headline.split(':')[0] : result.headline;
+  return (
+    <div className="space-y-4">
+      <section className={`rounded-card p-4 text-white sm:p-5 ${actionTone[result.action]}`} data-testid="answer-action" aria-labelledby="answer-headline">
         <p className="text-sm uppercase tracking-wide text-white/85">{result.speciesName} · {stageLabel[result.stage]} · {seasonLabel[result.season]}</p>
-        <h2 id="answer-headline" className="mt-1 font-display text-3xl font-semibold text-white sm:text-4xl">{result.action === 'pinch' || result.action === 'prune' ? result.headline.split(':')[0] : result.headline}</h2>
+        <h2 id="answer-headline" tabIndex={-1} className="mt-1 font-display text-2xl font-semibold text-white sm:text-4xl">
+          <TermText text={headline} terms={terms} />
+        </h2>
         {result.candleKeep ? (
-          <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-candle">
-            {capitalise(candleKeepText(result.candleKeep))}
+          <p className="mt-3 rounded-lg bg-white/15 p-3 text-lg font-semibold" data-testid="keep-candle">
+            <TermText text={capitalise(candleKeepText(result.candleKeep))} terms={terms} />
           </p>
         ) : null}
         {result.keepNeedleBundles != null ? (
-          <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-needles">
-            Leave at least {result.keepNeedleBundles} {result.keepNeedlePairs != null ? 'needle pairs' : 'needle bundles'} below the cut
+          <p className="mt-3 rounded-lg bg-white/15 p-3 text-lg font-semibold" data-testid="keep-needles">
+            <TermText text={`Leave at least ${result.keepNeedleBundles} ${result.keepNeedlePairs != null ? 'needle pairs' : 'needle bundles'} below the cut`} terms={terms} />
           </p>
         ) : result.keepNeedlePairs != null && result.candleKeep === undefined ? (
           // Answers saved by engine 1.0.0 carry only the pair count.
-          <p className="mt-3 rounded-lg bg-white/15 p-3 text-xl font-semibold" data-testid="keep-needles">
+          <p className="mt-3 rounded-lg bg-white/15 p-3 text-lg font-semibold" data-testid="keep-needles">
             Leave at least {result.keepNeedlePairs} pairs of needles
           </p>
         ) : null}
         <p className="mt-3 text-white/90" data-testid="day-length">{result.date} · {result.dayLength.text}</p>
       </section>
 
-      {result.howTo?.length ? (
-        <section className="card" aria-labelledby="howto-h" data-testid="how-to">
-          <h3 id="howto-h" className="text-lg">How to do it</h3>
-          <ol className="mt-2 list-decimal space-y-1 pl-5">{result.howTo.map((s) => <li key={s}>{s}</li>)}</ol>
-        </section>
-      ) : null}
+      {actions}
 
-      {result.terms?.length ? (
-        <section className="card" aria-labelledby="terms-h" data-testid="terms">
-          <h3 id="terms-h" className="text-lg">Words used here</h3>
-          <div className="mt-2 space-y-1">
-            {result.terms.map((t) => (
-              <details key={t.term} className="rounded-lg border border-stone-200 px-3 py-2">
-                <summary className="min-h-11 cursor-pointer py-2 font-semibold">{t.term}</summary>
-                <p className="pb-2">{t.definition}</p>
-              </details>
-            ))}
-          </div>
-        </section>
+      {result.howTo?.length ? (
+        <Section title="How to do it" testId="how-to" open>
+          <ol className="list-decimal space-y-1 pl-5">{result.howTo.map((s) => <li key={s}><TermText text={s} terms={terms} /></li>)}</ol>
+        </Section>
       ) : null}
 
       {result.watch.length > 0 && (
-        <section className="card" aria-labelledby="watch-h">
-          <h3 id="watch-h" className="text-lg">What to watch for next</h3>
-          <ul className="mt-2 list-disc space-y-1 pl-5">{result.watch.map((w) => <li key={w}>{w}</li>)}</ul>
-        </section>
+        <Section title="What to watch for next" testId="watch">
+          <ul className="list-disc space-y-1 pl-5">{result.watch.map((w) => <li key={w}><TermText text={w} terms={terms} /></li>)}</ul>
+        </Section>
       )}
 
-      <section className="card" aria-labelledby="why-h">
-        <h3 id="why-h" className="text-lg">Why</h3>
-        <ol className="mt-2 space-y-3" data-testid="reasons">
+      <Section title="Why" testId="why">
+        <ol className="space-y-3" data-testid="reasons">
           {result.reasons.map((r) => (
             <li key={r.rule} className="border-l-4 border-moss-300 pl-3">
-              <p>{r.text}</p>
-              <p className="text-sm text-stone-700">Source: {r.source} · rule <code>{r.rule}</code></p>
+              <p><TermText text={r.text} terms={terms} /></p>
+              <p className="text-sm text-stone-700">Source: {r.source}</p>
             </li>
           ))}
         </ol>
-      </section>
+        <details className="mt-3" data-testid="rule-details">
+          <summary className="min-h-target cursor-pointer py-2.5 text-sm font-medium text-moss-700">Details for checking</summary>
+          <p className="text-sm text-stone-700">Rules applied, in order: {result.reasons.map((r, i) => <span key={r.rule}>{i ? ', ' : ''}<code>{r.rule}</code></span>)}. Engine {result.engineVersion}, species revision {result.speciesRevision}.</p>
+        </details>
+      </Section>
 
-      <section className="rounded-card border-2 border-sun-500 bg-sun-100 p-4 sm:p-6" aria-labelledby="caution-h" data-testid="cautions">
-        <h3 id="caution-h" className="text-lg text-sun-700">Take care</h3>
-        <ul className="mt-2 list-disc space-y-2 pl-5 text-stone-900">
+      <Section title="Take care" testId="cautions" tone="caution" count={result.cautions.length}>
+        <ul className="list-disc space-y-2 pl-5 text-stone-900">
           {result.cautions.map((c) => <li key={c.text}>{c.text} <span className="text-sm text-stone-700">({c.source})</span></li>)}
         </ul>
-      </section>
+      </Section>
 
-      <section className="card" aria-labelledby="feed-h" data-testid="feeding">
-        <h3 id="feed-h" className="text-lg">Feeding</h3>
-        <p className="mt-1 font-medium">{f.purpose}</p>
+      <Section title="Feeding" testId="feeding">
+        <p className="font-medium">{f.purpose}</p>
         <p className={`mt-2 inline-block rounded-lg px-3 py-1 font-semibold ${f.feedNow ? 'bg-moss-100 text-moss-800' : 'bg-stone-200 text-stone-800'}`} data-testid="feed-now">
           {f.feedNow ? 'Feed now' : 'Do not feed now'}
         </p>
@@ -99,12 +109,27 @@ export function AnswerResult({ result }: { result: WizardResult }) {
           <dt className="font-medium text-stone-700">Foliar feed</dt><dd>{f.foliar ? 'Yes: fish emulsion or kelp, as the label directs' : 'No'}</dd>
         </dl>
         <details className="mt-3">
-          <summary className="min-h-target cursor-pointer py-2 font-medium text-moss-700">Why this plan</summary>
+          <summary className="min-h-target cursor-pointer py-2.5 font-medium text-moss-700">Why this plan</summary>
           <ul className="mt-2 space-y-2">
             {f.reasons.map((r) => <li key={r.rule}>{r.text} <span className="text-sm text-stone-700">({r.source})</span></li>)}
           </ul>
         </details>
-      </section>
+      </Section>
+
+      {terms?.length ? (
+        <Section title="Words used here" testId="terms">
+          <div className="space-y-1">
+            {terms.map((t) => (
+              <details key={t.term} className="rounded-lg border border-stone-200 px-3">
+                <summary className="min-h-target cursor-pointer py-2.5 font-semibold capitalize">{t.term}</summary>
+                <div className="pb-2"><TermExplanation term={t} /></div>
+              </details>
+            ))}
+          </div>
+        </Section>
+      ) : null}
+
+      {after}
     </div>
   );
 }

@@ -247,9 +247,16 @@ export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto |
 export async function updateAnswer(
   user: Pick<SessionUser, 'id'>,
   id: string,
-  patch: { followUp?: string; note?: string; visibility?: 'private' | 'club' },
+  patch: { followUp?: string; note?: string; visibility?: 'private' | 'club'; treeId?: string | null },
 ): Promise<AnswerDto> {
   const db = await getDb();
+  // Only your own answer, and only to your own tree: someone else's tree reads like a missing one.
+  if (patch.treeId && answerIdPattern.test(id)) {
+    const [own] = await db.select({ id: answers.id }).from(answers).where(and(eq(answers.id, id), eq(answers.userId, user.id))).limit(1);
+    if (!own) await refuse(id, user);
+    const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, patch.treeId), eq(trees.ownerId, user.id))).limit(1);
+    if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
+  }
   const rows = answerIdPattern.test(id)
     ? await db.update(answers).set(patch).where(and(eq(answers.id, id), eq(answers.userId, user.id))).returning({ id: answers.id })
     : [];

@@ -1,12 +1,14 @@
 import { z } from 'zod';
 import { boundedIsoDate } from './bounds';
 import { idSchema } from '@/lib/ids';
+import { potDimensionSchema } from './container';
 
 // A member's tree: one schema for the create/edit form and for POST/PATCH /api/trees.
 // Dates are ISO calendar dates (YYYY-MM-DD); dimensions are centimetres of the soil surface.
 
-export const containerShapes = ['round', 'rectangle', 'oval'] as const;
-export type ContainerShape = (typeof containerShapes)[number];
+// The same shapes the wizard asks about, so a tree's pot always fits the wizard.
+import { containerShapes, type ContainerShape } from '@/lib/wizard/types';
+export { containerShapes, type ContainerShape };
 
 export const containerShapeLabels: Record<ContainerShape, string> = {
   round: 'Round',
@@ -21,11 +23,7 @@ export function todayIso(now = new Date()): string {
 
 const isoDate = boundedIsoDate('Use a date like 2026-04-12.');
 const optionalDate = isoDate.nullable();
-const dimension = z
-  .number({ error: 'Give the size in centimetres.' })
-  // At least 0.1 cm (a PostgreSQL real refuses tiny magnitudes like 1e-320: that was a 500).
-  .min(0.1, { error: 'The size must be at least 0.1 cm.' })
-  .max(400, { error: 'That is larger than any container we know (400 cm at most).' });
+const dimension = potDimensionSchema;
 
 export const treeFieldsSchema = z.object({
   name: z.string().trim().min(1, { error: 'Give the tree a name.' }).max(80, { error: 'Keep the name under 80 characters.' }),

@@ -4,29 +4,34 @@ import {
 } from '@/lib/wizard/types';
 import { parseIsoDate } from '@/lib/wizard/season';
 import { slugSchema } from './species';
+import { boundedIsoDate } from './bounds';
+import { potDimensionSchema } from './container';
 
 export const containerSchema = z
   .object({
     shape: z.enum(containerShapes),
-    lengthCm: z.number().positive().max(300),
-    widthCm: z.number().positive().max(300).optional(),
+    lengthCm: potDimensionSchema,
+    widthCm: potDimensionSchema.optional(),
   })
   .refine((c) => c.shape === 'round' || c.widthCm !== undefined, {
     error: 'A rectangular or oval pot needs its width.',
     path: ['widthCm'],
   });
 
-export const isoDateSchema = z
-  .string()
+export const latitudeSchema = z.number({ error: 'Give the latitude in degrees.' }).min(-90, { error: 'A latitude is from -90 to 90 degrees.' }).max(90, { error: 'A latitude is from -90 to 90 degrees.' });
+
+// The same years as every other date in the record (a tree's, a note's), and a real calendar day.
+export const isoDateSchema = boundedIsoDate('Give a real date as YYYY-MM-DD.')
   .refine((s) => parseIsoDate(s) !== null, { error: 'Give a real date as YYYY-MM-DD.' });
 
 export const evaluateBodySchema = z
   .object({
     species: slugSchema,
-    branching: z.enum(branchingLevels),
+    // Not asked for a recovering tree (weak or recently collected): its answer does not depend on it.
+    branching: z.enum(branchingLevels).optional(),
     date: isoDateSchema,
     hemisphere: z.enum(hemispheres).optional(),
-    latitude: z.number().min(-90).max(90).optional(),
+    latitude: latitudeSchema.optional(),
     shoot: z.enum(shootStates),
     position: z.enum(positions).optional(),
     health: z.enum(healthLevels),
@@ -37,6 +42,10 @@ export const evaluateBodySchema = z
     repottedThisYear: z.boolean().optional(),
     // °C days above +5 °C since the season began; a year rarely passes 6 000 even in the tropics.
     degreeDays: z.number().min(0).max(10_000).optional(),
+  })
+  .refine((b) => b.branching !== undefined || isRecovering(b), {
+    error: 'Say how far the branching is.',
+    path: ['branching'],
   })
   // Position against the silhouette decides refinement; development does not ask it.
   .refine((b) => b.branching !== 'tertiary' || b.position !== undefined, {
@@ -53,6 +62,11 @@ export const evaluateBodySchema = z
   });
 
 export type EvaluateBody = z.infer<typeof evaluateBodySchema>;
+
+/** A weak or recently collected tree is in recovery whatever its branching: the wizard asks no more about shape. */
+export function isRecovering(a: { health?: string; recentlyCollected?: boolean }): boolean {
+  return a.health === 'weak' || a.recentlyCollected === true;
+}
 
 export const visibilities = ['private', 'club'] as const;
 
@@ -72,9 +86,11 @@ export const patchAnswerSchema = z
     followUp: z.string().trim().max(4000).optional(),
     note: z.string().trim().max(2000).optional(),
     visibility: z.enum(visibilities).optional(),
+    /** Attach the answer to one of your trees later, or detach it (null). */
+    treeId: z.string().trim().min(1).max(64).nullable().optional(),
   })
   .strict()
-  .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one of followUp, note, visibility.' });
+  .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one of followUp, note, visibility, treeId.' });
 
 export const listAnswersQuerySchema = z.object({
   cursor: z.string().max(200).optional(),

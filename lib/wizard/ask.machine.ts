@@ -1,104 +1,16 @@
 import { assign, fromPromise, setup } from 'xstate';
 import type { EvaluateBody } from '@/lib/validation/wizard';
-import type { Branching, CandleStrength, ContainerInput, Health, Hemisphere, Position, ShootState, WizardResult } from './types';
+import type { WizardResult } from './types';
+import {
+  answersForTree, canReach, resumedAnswers, firstOpenStep, firstStep, isAnswered, isRelevant, nextStep, NOT_MINE, prevStep, toEvaluateBody,
+  type AskAnswers, type AskStep, type Flow, type TreeOption,
+} from './ask-steps';
+import type { StoredRun } from './ask-resume';
+
+export * from './ask-steps';
 
 // The /ask wizard as a state machine. Pure: evaluating and saving are actors the page injects
 // (machine.provide), so the machine is tested with createActor and no network.
-
-export const askSteps = ['species', 'branching', 'shoot', 'position', 'health', 'when', 'answer'] as const;
-export type AskStep = (typeof askSteps)[number];
-export type QuestionStep = Exclude<AskStep, 'answer'>;
-
-export interface AskAnswers {
-  species?: string;
-  branching?: Branching;
-  shoot?: ShootState;
-  position?: Position;
-  health?: Health;
-  recentlyCollected?: boolean;
-  backBuds?: boolean;
-  /** Optional: a tree repotted this year is never decandled. */
-  repottedThisYear?: boolean;
-  /** Optional: this candle against the others on the tree (the engine assumes average). */
-  candleStrength?: CandleStrength;
-  date?: string;
-  hemisphere?: Hemisphere;
-  latitude?: number;
-  container?: ContainerInput;
-}
-
-/** A question the answers so far make irrelevant is skipped (position: only for a refinement branch). */
-export function isRelevant(step: AskStep, a: AskAnswers): boolean {
-  if (step === 'position') return a.branching === undefined || a.branching === 'tertiary';
-  return true;
-}
-
-/** The back-bud question only matters for a development branch whose needles have hardened. */
-export function asksBackBuds(a: AskAnswers): boolean {
-  return a.branching !== undefined && a.branching !== 'tertiary' && a.shoot === 'needles-hardened';
-}
-
-/** No pot, or a pot with every dimension its shape needs. */
-export function containerComplete(c: ContainerInput | undefined): boolean {
-  if (!c) return true;
-  const ok = (n: number | undefined) => typeof n === 'number' && Number.isFinite(n) && n > 0;
-  return ok(c.lengthCm) && (c.shape === 'round' || ok(c.widthCm));
-}
-
-export function isAnswered(step: AskStep, a: AskAnswers): boolean {
-  switch (step) {
-    case 'species': return !!a.species;
-    case 'branching': return !!a.branching;
-    case 'shoot': return !!a.shoot;
-    case 'position': return !!a.position;
-    case 'health': return !!a.health;
-    case 'when': return !!a.date && /^\d{4}-\d{2}-\d{2}$/.test(a.date) && containerComplete(a.container);
-    case 'answer': return false;
-  }
-}
-
-export function nextStep(step: AskStep, a: AskAnswers): AskStep {
-  let i = askSteps.indexOf(step) + 1;
-  while (i < askSteps.length - 1 && !isRelevant(askSteps[i], a)) i++;
-  return askSteps[Math.min(i, askSteps.length - 1)];
-}
-
-export function prevStep(step: AskStep, a: AskAnswers): AskStep {
-  let i = askSteps.indexOf(step) - 1;
-  while (i > 0 && !isRelevant(askSteps[i], a)) i--;
-  return askSteps[Math.max(i, 0)];
-}
-
-/** The first relevant question not yet answered, or 'answer' when all are. */
-export function firstOpenStep(a: AskAnswers): AskStep {
-  return askSteps.find((s) => s !== 'answer' && isRelevant(s, a) && !isAnswered(s, a)) ?? 'answer';
-}
-
-/** A step can be opened (from the URL or the back button) once every relevant step before it is answered. */
-export function canReach(step: AskStep, a: AskAnswers): boolean {
-  const i = askSteps.indexOf(step);
-  return askSteps.slice(0, i).every((s) => !isRelevant(s, a) || isAnswered(s, a));
-}
-
-/** The evaluate body for the answers; irrelevant answers are left out. */
-export function toEvaluateBody(a: AskAnswers): EvaluateBody {
-  const body: EvaluateBody = {
-    species: a.species!,
-    branching: a.branching!,
-    date: a.date!,
-    shoot: a.shoot!,
-    health: a.health!,
-  };
-  if (a.branching === 'tertiary') body.position = a.position;
-  if (a.hemisphere) body.hemisphere = a.hemisphere;
-  if (typeof a.latitude === 'number') body.latitude = a.latitude;
-  if (a.recentlyCollected) body.recentlyCollected = true;
-  if (a.repottedThisYear) body.repottedThisYear = true;
-  if (a.candleStrength) body.candleStrength = a.candleStrength;
-  if (asksBackBuds(a) && typeof a.backBuds === 'boolean') body.backBuds = a.backBuds;
-  if (a.container) body.container = a.container;
-  return body;
-}
 
 export interface SaveRequest {
   body: EvaluateBody;
@@ -111,6 +23,11 @@ export interface AskContext {
   step: AskStep;
   answers: AskAnswers;
   treeId?: string;
+  trees: TreeOption[];
+  /** Today's date: a fresh run starts with it. */
+  today?: string;
+  /** An unfinished run offered back ("Continue with …?") until the member picks. */
+  resume: StoredRun | null;
   result: WizardResult | null;
   error: string | null;
   saved: { id: string; url: string } | null;
@@ -119,10 +36,12 @@ export interface AskContext {
 
 export type AskEvent =
   | { type: 'SET'; answers: Partial<AskAnswers> }
+  | { type: 'PICK_TREE'; treeId: string | null }
   | { type: 'NEXT' }
   | { type: 'BACK' }
   | { type: 'GOTO'; step: AskStep }
   | { type: 'SAVE'; note?: string; visibility: 'private' | 'club' }
+  | { type: 'CONTINUE' }
   | { type: 'RESTART' };
 
 export interface AskInput {
@@ -130,9 +49,30 @@ export interface AskInput {
   treeId?: string;
   /** Open at this step if it can be reached; otherwise at the first open question. */
   step?: AskStep;
+  /** The member's trees: with any, the first question is which of them this is. */
+  trees?: TreeOption[];
+  today?: string;
+  /** An unfinished run to offer back before anything else. */
+  resume?: StoredRun | null;
 }
 
 const errorText = (e: unknown) => (e instanceof Error ? e.message : 'Something went wrong.');
+const flowOf = (c: { trees: TreeOption[] }): Flow => ({ hasTrees: c.trees.length > 0 });
+
+/** Where a run with these answers opens: the asked-for step if it can be reached, else the first open question. */
+function openingStep(answers: AskAnswers, f: Flow, wanted?: AskStep): AskStep {
+  const open = firstOpenStep(answers, f);
+  let step: AskStep = open;
+  if (wanted && wanted !== 'answer' && isRelevant(wanted, answers, f) && canReach(wanted, answers, f)) step = wanted;
+  // All answered: show the answer only when asked for it, else the last question.
+  if (step === 'answer' && wanted !== 'answer') step = 'when';
+  return step;
+}
+
+function freshAnswers(c: { today?: string; answers: AskAnswers }): AskAnswers {
+  const date = c.today ?? c.answers.date;
+  return date ? { date } : {};
+}
 
 export const askMachine = setup({
   types: {
@@ -149,11 +89,12 @@ export const askMachine = setup({
     }),
   },
   guards: {
+    offering: ({ context }) => context.resume !== null,
     stepAnswered: ({ context }) => isAnswered(context.step, context.answers),
-    nextIsAnswer: ({ context }) => isAnswered(context.step, context.answers) && nextStep(context.step, context.answers) === 'answer',
-    gotoAnswer: ({ context, event }) => event.type === 'GOTO' && event.step === 'answer' && firstOpenStep(context.answers) === 'answer',
+    nextIsAnswer: ({ context }) => isAnswered(context.step, context.answers) && nextStep(context.step, context.answers, flowOf(context)) === 'answer',
+    gotoAnswer: ({ context, event }) => event.type === 'GOTO' && event.step === 'answer' && firstOpenStep(context.answers, flowOf(context)) === 'answer',
     gotoQuestion: ({ context, event }) =>
-      event.type === 'GOTO' && event.step !== 'answer' && isRelevant(event.step, context.answers) && canReach(event.step, context.answers),
+      event.type === 'GOTO' && event.step !== 'answer' && isRelevant(event.step, context.answers, flowOf(context)) && canReach(event.step, context.answers, flowOf(context)),
     startsComplete: ({ context }) => context.step === 'answer',
   },
   actions: {
@@ -161,30 +102,56 @@ export const askMachine = setup({
       answers: ({ context, event }) => (event.type === 'SET' ? { ...context.answers, ...event.answers } : context.answers),
       error: null,
     }),
-    goNext: assign({ step: ({ context }) => nextStep(context.step, context.answers) }),
-    goBack: assign({ step: ({ context }) => prevStep(context.step, context.answers) }),
+    pickTree: assign(({ context, event }) => {
+      if (event.type !== 'PICK_TREE') return {};
+      const tree = event.treeId ? context.trees.find((t) => t.id === event.treeId) ?? null : null;
+      if (event.treeId && !tree) return {};
+      if (context.answers.tree === (tree?.id ?? NOT_MINE)) return {};
+      return { answers: answersForTree(context.answers, tree), treeId: tree?.id, error: null };
+    }),
+    goNext: assign({ step: ({ context }) => nextStep(context.step, context.answers, flowOf(context)) }),
+    goBack: assign({ step: ({ context }) => prevStep(context.step, context.answers, flowOf(context)) }),
     goTo: assign({ step: ({ event }) => (event.type === 'GOTO' ? event.step : 'species') }),
+    restart: assign(({ context }) => {
+      const answers = freshAnswers(context);
+      return { answers, step: firstStep(answers, flowOf(context)), treeId: undefined, result: null, saved: null, saveError: null, error: null, resume: null };
+    }),
+    resumeRun: assign(({ context }) => {
+      const run = context.resume;
+      if (!run) return {};
+      const treeId = run.treeId && context.trees.some((t) => t.id === run.treeId) ? run.treeId : undefined;
+      const answers = resumedAnswers({ ...run.answers }, flowOf(context));
+      // A tree that is no longer the member's is not offered back.
+      if (answers.tree && answers.tree !== NOT_MINE && !treeId) delete answers.tree;
+      return { answers, treeId, step: openingStep(answers, flowOf(context), run.step), resume: null };
+    }),
   },
 }).createMachine({
   id: 'ask',
   context: ({ input }) => {
-    const answers = input.answers ?? {};
-    const open = firstOpenStep(answers);
-    // Pre-filled species (from a tree or a link): start at the first real question.
-    let step: AskStep = open;
-    if (input.step && input.step !== 'answer' && isRelevant(input.step, answers) && canReach(input.step, answers)) step = input.step;
-    // All answered: show the answer only when asked for it, else the last question.
-    if (step === 'answer' && input.step !== 'answer') step = 'when';
-    return { step, answers, treeId: input.treeId, result: null, error: null, saved: null, saveError: null };
+    const trees = input.trees ?? [];
+    const answers = input.answers ?? (input.today ? { date: input.today } : {});
+    const step = openingStep(answers, { hasTrees: trees.length > 0 }, input.step);
+    return {
+      step, answers, treeId: input.treeId, trees, today: input.today, resume: input.resume ?? null,
+      result: null, error: null, saved: null, saveError: null,
+    };
   },
   initial: 'routing',
   states: {
     routing: {
-      always: [{ guard: 'startsComplete', target: 'evaluating' }, { target: 'asking' }],
+      always: [{ guard: 'offering', target: 'offering' }, { guard: 'startsComplete', target: 'evaluating' }, { target: 'asking' }],
+    },
+    offering: {
+      on: {
+        CONTINUE: { target: 'routing', actions: 'resumeRun' },
+        RESTART: { target: 'asking', actions: 'restart' },
+      },
     },
     asking: {
       on: {
         SET: { actions: 'setAnswers' },
+        PICK_TREE: { actions: 'pickTree' },
         NEXT: [
           { guard: 'nextIsAnswer', target: 'evaluating' },
           { guard: 'stepAnswered', actions: 'goNext' },
@@ -194,6 +161,7 @@ export const askMachine = setup({
           { guard: 'gotoAnswer', target: 'evaluating' },
           { guard: 'gotoQuestion', actions: 'goTo' },
         ],
+        RESTART: { actions: 'restart' },
       },
     },
     evaluating: {
@@ -207,10 +175,10 @@ export const askMachine = setup({
     },
     answer: {
       on: {
-        BACK: { target: 'asking', actions: assign({ step: ({ context }) => prevStep('answer', context.answers) }) },
+        BACK: { target: 'asking', actions: assign({ step: ({ context }) => prevStep('answer', context.answers, flowOf(context)) }) },
         GOTO: { guard: 'gotoQuestion', target: 'asking', actions: 'goTo' },
         SAVE: 'saving',
-        RESTART: { target: 'asking', actions: assign({ step: 'species' as AskStep, answers: ({ context }) => ({ date: context.answers.date }), result: null, saved: null, treeId: undefined }) },
+        RESTART: { target: 'asking', actions: 'restart' },
       },
     },
     saving: {

@@ -31,3 +31,34 @@ export function termsIn(texts: string[]): Term[] {
 }
 
 export const glossaryTerms = GLOSSARY.map((g) => g.term);
+
+export interface TextPart {
+  text: string;
+  /** The glossary term these words stand for, when they are one. */
+  term?: string;
+}
+
+/**
+ * The text cut into plain words and the glossary terms it uses (only those in `terms`), so each
+ * term can be tapped for its meaning. At one place the longest match wins ("needle pairs" over "needle").
+ */
+export function splitTerms(text: string, terms: string[]): TextPart[] {
+  const wanted = GLOSSARY.filter((g) => terms.includes(g.term)).map((g) => ({ term: g.term, re: new RegExp(g.match.source, 'gi') }));
+  const parts: TextPart[] = [];
+  let at = 0;
+  while (at < text.length) {
+    let best: { index: number; length: number; term: string } | null = null;
+    for (const w of wanted) {
+      w.re.lastIndex = at;
+      const m = w.re.exec(text);
+      if (!m || m[0].length === 0) continue;
+      if (!best || m.index < best.index || (m.index === best.index && m[0].length > best.length)) best = { index: m.index, length: m[0].length, term: w.term };
+    }
+    if (!best) break;
+    if (best.index > at) parts.push({ text: text.slice(at, best.index) });
+    parts.push({ text: text.slice(best.index, best.index + best.length), term: best.term });
+    at = best.index + best.length;
+  }
+  if (at < text.length) parts.push({ text: text.slice(at) });
+  return parts;
+}

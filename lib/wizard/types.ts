@@ -32,7 +32,8 @@ export interface ContainerInput {
 
 export interface WizardInput {
   species: string;
-  branching: Branching;
+  /** Not asked in recovery (weak or recently collected), where it changes nothing. */
+  branching?: Branching;
   /** ISO date of the observation; the context's "today" when absent. */
   date?: string;
   hemisphere?: Hemisphere;

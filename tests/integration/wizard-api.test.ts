@@ -131,6 +131,29 @@ describe('the answer log', () => {
     expect((await m.json('/api/answers', 'POST', { ...body, species: 'pinus-imaginaria' })).status).toBe(404);
   });
 
+  it('attaches a saved answer to one of your trees later, and detaches it; never to another member’s tree', async () => {
+    const m = await signedIn(base, 'member@candlewise.test');
+    const other = await signedIn(base, 'member2@candlewise.test');
+    const mine = (await m.json('/api/trees', 'GET')).body;
+    const tree = (Array.isArray(mine) ? mine : mine.items).find((t: { name: string }) => t.name === 'Weir-side Scots');
+    const theirs = await other.json('/api/trees', 'POST', { name: 'Not yours', speciesSlug: 'pinus-sylvestris', stageNotes: '', containerShape: null, containerLengthCm: null, containerWidthCm: null, acquiredOn: null, collectedFromWild: false, collectedOn: null, notes: '' });
+    expect(theirs.status).toBe(201);
+    const saved = await m.json('/api/answers', 'POST', body);
+    const path = `/api/answers/${saved.body.id}`;
+    expect((await m.json(path, 'GET')).body.treeId).toBeNull();
+    const attached = await m.json(path, 'PATCH', { treeId: tree.id });
+    expect(attached.status).toBe(200);
+    expect(attached.body.treeId).toBe(tree.id);
+    const refused = await m.json(path, 'PATCH', { treeId: theirs.body.tree.id });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields.treeId).toBeDefined();
+    expect((await m.json(path, 'GET')).body.treeId).toBe(tree.id);
+    // Someone else cannot attach your answer to their tree either: it is not theirs to know about.
+    expect((await other.json(path, 'PATCH', { treeId: theirs.body.tree.id })).status).toBe(404);
+    const detached = await m.json(path, 'PATCH', { treeId: null });
+    expect(detached.body.treeId).toBeNull();
+  });
+
   it('lists own answers newest first with keyset pages and filters', async () => {
     const m = await signedIn(base, 'member2@candlewise.test');
     const ids: string[] = [];

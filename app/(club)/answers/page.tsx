@@ -30,7 +30,7 @@ export default async function AnswersPage({ searchParams }: { searchParams: Prom
     <div className="mx-auto max-w-3xl space-y-5">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="page-title">Your answers</h1>
-        <Link href="/ask" className="btn-primary">Ask about a shoot</Link>
+        <Link href="/ask?start=new" className="btn-primary">Ask about a shoot</Link>
       </div>
       <WaitingAnswers />
       <form method="get" className="card grid gap-3 sm:grid-cols-[1fr_1fr_auto] sm:items-end" aria-label="Filter answers">

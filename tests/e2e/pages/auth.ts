@@ -15,7 +15,8 @@ export class SignInPage {
     await form.getByLabel('E-mail').fill(email);
     await form.getByLabel('Password').fill(password);
     await form.getByRole('button', { name: 'Sign in' }).click();
-    await expect(this.page.getByTestId('current-user')).toBeVisible();
+    // On a phone the account sits in the header's menu: present, but folded away.
+    await expect(this.page.getByTestId('current-user')).toBeAttached();
   }
 
   async askForLink(email: string) {
@@ -28,6 +29,8 @@ export class SignInPage {
 }
 
 export async function signOut(page: Page) {
+  const menu = page.getByTestId('menu-button');
+  if (await menu.isVisible()) await menu.click();
   await page.getByRole('button', { name: 'Sign out' }).click();
   await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 }

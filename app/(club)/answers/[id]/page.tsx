@@ -11,6 +11,7 @@ import { PhotoPanel } from '@/components/photos/photo-panel';
 import { listPhotos } from '@/lib/data/photos';
 import { PhoneComparison } from '@/components/offline/phone-comparison';
 import type { PhoneResult } from '@/lib/validation/offline';
+import { listTrees } from '@/lib/data/trees';
 
 export const metadata: Metadata = { title: 'Answer' };
 
@@ -32,7 +33,7 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
   const user = await requirePageUser(`/answers/${id}`);
   const a = await getAnswer(id, user);
   if (!a) notFound();
-  const photos = await listPhotos(user, { answerId: a.id });
+  const [photos, trees] = await Promise.all([listPhotos(user, { answerId: a.id }), a.isOwner ? listTrees(user) : []]);
   const input: Record<string, unknown> = { ...a.input };
   const c = a.input.container;
   return (
@@ -59,7 +60,7 @@ export default async function AnswerPage({ params }: { params: Promise<{ id: str
       </section>
       <PhotoPanel target={{ answerId: a.id }} initial={photos} canAdd={a.isOwner} label="Shoot photos" />
       <Backlinks type="answer" id={a.id} />
-      {a.isOwner && <OwnerControls id={a.id} initial={{ note: a.note, followUp: a.followUp, visibility: a.visibility }} />}
+      {a.isOwner && <OwnerControls id={a.id} initial={{ note: a.note, followUp: a.followUp, visibility: a.visibility, treeId: a.treeId }} trees={trees.map((t) => ({ id: t.id, name: t.name }))} />}
       <RerunPanel id={a.id} />
       <p><Link href={a.isOwner ? '/answers' : '/ask'}>{a.isOwner ? '← All your answers' : 'Ask about your own tree'}</Link></p>
     </div>

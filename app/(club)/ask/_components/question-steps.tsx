@@ -1,11 +1,11 @@
 'use client';
 import { useMemo, useState } from 'react';
 import { buildSpeciesIndex, searchSpecies } from '@/lib/species/search';
-import type { AskAnswers } from '@/lib/wizard/ask.machine';
-import { asksBackBuds } from '@/lib/wizard/ask.machine';
+import { asksBackBuds, asksCandleStrength, isRecovering, NOT_MINE, type AskAnswers, type TreeOption } from '@/lib/wizard/ask-steps';
+import { POT_MAX_CM, POT_MIN_CM } from '@/lib/validation/container';
 import type { ContainerShape } from '@/lib/wizard/types';
 import { Choices } from './choices';
-import { BranchingDrawing, PositionDrawing, ShootDrawing } from './drawings';
+import { BranchingDrawing, PositionDrawing, ShootDrawing } from '@/components/wizard/drawings';
 
 export interface SpeciesName {
   slug: string;
@@ -15,6 +15,20 @@ export interface SpeciesName {
 }
 
 type Set = (a: Partial<AskAnswers>) => void;
+
+export function TreeStep({ trees, value, onPick }: { trees: TreeOption[]; value?: string; onPick: (treeId: string | null) => void }) {
+  return (
+    <Choices
+      name="tree" legend="Which of your trees is it?"
+      hint="Its species and pot are filled in, and the answer is kept with the tree."
+      value={value} onChange={(v) => onPick(v === NOT_MINE ? null : v)}
+      options={[
+        ...trees.map((t) => ({ value: t.id, title: t.name, detail: t.speciesName })),
+        { value: NOT_MINE, title: 'Not one of mine', detail: 'Another tree: a friend’s, or one at the nursery.' },
+      ]}
+    />
+  );
+}
 
 export function SpeciesStep({ species, value, onChange }: { species: SpeciesName[]; value?: string; onChange: Set }) {
   const [query, setQuery] = useState('');
@@ -50,18 +64,42 @@ export function SpeciesStep({ species, value, onChange }: { species: SpeciesName
   );
 }
 
-export function BranchingStep({ value, onChange }: { value?: AskAnswers['branching']; onChange: Set }) {
+export function BranchingStep({ answers, onChange }: { answers: AskAnswers; onChange: Set }) {
   return (
-    <Choices
-      name="branching" legend="How far is the branching of this branch?"
-      hint="Look at one branch from the trunk outwards."
-      value={value} onChange={(v) => onChange({ branching: v })}
-      options={[
-        { value: 'primary', title: 'Primary only', detail: 'One limb from the trunk, few or no side branches.', picture: <BranchingDrawing level="primary" /> },
-        { value: 'secondary', title: 'Primary and secondary', detail: 'The limb has side branches, but they do not fork again.', picture: <BranchingDrawing level="secondary" /> },
-        { value: 'tertiary', title: 'Primary, secondary and tertiary', detail: 'The side branches fork again into small twigs that carry pads of foliage.', picture: <BranchingDrawing level="tertiary" /> },
-      ]}
-    />
+    <div className="space-y-6">
+      <Choices
+        name="branching" legend="How far is the branching of this branch?"
+        hint="Look at one branch from the trunk outwards."
+        value={answers.branching} onChange={(v) => onChange({ branching: v })}
+        options={[
+          { value: 'primary', title: 'Primary only', detail: 'One limb from the trunk, few or no side branches.', picture: <BranchingDrawing level="primary" /> },
+          { value: 'secondary', title: 'Primary and secondary', detail: 'The limb has side branches, but they do not fork again.', picture: <BranchingDrawing level="secondary" /> },
+          { value: 'tertiary', title: 'Primary, secondary and tertiary', detail: 'The side branches fork again into small twigs that carry pads of foliage.', picture: <BranchingDrawing level="tertiary" /> },
+        ]}
+      />
+      {asksCandleStrength(answers) && (
+        <Choices
+          name="candleStrength" legend="How strong is this shoot against the others on the tree? (optional)"
+          value={answers.candleStrength} onChange={(v) => onChange({ candleStrength: v })}
+          options={[
+            { value: 'strong', title: 'One of the strongest', detail: 'Longer and thicker than most of the tree’s new shoots.' },
+            { value: 'average', title: 'About average', detail: 'Like most of the new shoots on the tree.' },
+            { value: 'weak', title: 'Weaker than most', detail: 'Short or thin next to the others.' },
+          ]}
+        />
+      )}
+      {asksBackBuds(answers) && (
+        <Choices
+          name="backBuds" legend="Are there back buds on older wood behind the tip?"
+          value={answers.backBuds === undefined ? undefined : answers.backBuds ? 'yes' : 'no'}
+          onChange={(v) => onChange({ backBuds: v === 'yes' })}
+          options={[
+            { value: 'yes', title: 'Yes', detail: 'Small new buds have formed behind the tip.' },
+            { value: 'no', title: 'Not yet', detail: 'No buds behind the tip so far.' },
+          ]}
+        />
+      )}
+    </div>
   );
 }
 
@@ -116,27 +154,10 @@ export function HealthStep({ answers, onChange }: { answers: AskAnswers; onChang
         <input type="checkbox" className="h-6 w-6 accent-moss-700" checked={!!answers.repottedThisYear} onChange={(e) => onChange({ repottedThisYear: e.target.checked })} data-testid="repotted-this-year" />
         <span className="text-lg">Repotted this year</span>
       </label>
-      {answers.branching === 'tertiary' && answers.shoot !== 'dormant-bud' && (
-        <Choices
-          name="candleStrength" legend="How strong is this shoot against the others on the tree? (optional)"
-          value={answers.candleStrength} onChange={(v) => onChange({ candleStrength: v })}
-          options={[
-            { value: 'strong', title: 'One of the strongest', detail: 'Longer and thicker than most of the tree’s new shoots.' },
-            { value: 'average', title: 'About average', detail: 'Like most of the new shoots on the tree.' },
-            { value: 'weak', title: 'Weaker than most', detail: 'Short or thin next to the others.' },
-          ]}
-        />
-      )}
-      {asksBackBuds(answers) && (
-        <Choices
-          name="backBuds" legend="Are there back buds on older wood behind the tip?"
-          value={answers.backBuds === undefined ? undefined : answers.backBuds ? 'yes' : 'no'}
-          onChange={(v) => onChange({ backBuds: v === 'yes' })}
-          options={[
-            { value: 'yes', title: 'Yes', detail: 'Small new buds have formed behind the tip.' },
-            { value: 'no', title: 'Not yet', detail: 'No buds behind the tip so far.' },
-          ]}
-        />
+      {isRecovering(answers) && (
+        <p className="rounded-lg bg-moss-50 p-3" role="status" data-testid="recovery-note">
+          A weak or recently collected tree is left to recover whatever its shape, so the questions about branching and the outline are skipped.
+        </p>
       )}
     </div>
   );
@@ -189,12 +210,12 @@ export function WhenStep({ answers, club, onChange }: { answers: AskAnswers; clu
           <div className="grid grid-cols-2 gap-3">
             <div>
               <label htmlFor="pot-length" className="field-label">{c.shape === 'round' ? 'Diameter (cm)' : 'Length (cm)'}</label>
-              <input id="pot-length" type="number" inputMode="decimal" min={1} max={300} className="field-input" value={Number.isFinite(c.lengthCm) ? c.lengthCm : ''} onChange={(e) => setContainer({ lengthCm: e.target.value })} />
+              <input id="pot-length" type="number" inputMode="decimal" min={POT_MIN_CM} max={POT_MAX_CM} className="field-input" value={Number.isFinite(c.lengthCm) ? c.lengthCm : ''} onChange={(e) => setContainer({ lengthCm: e.target.value })} />
             </div>
             {c.shape !== 'round' && (
               <div>
                 <label htmlFor="pot-width" className="field-label">Width (cm)</label>
-                <input id="pot-width" type="number" inputMode="decimal" min={1} max={300} className="field-input" value={c.widthCm ?? ''} onChange={(e) => setContainer({ widthCm: e.target.value })} />
+                <input id="pot-width" type="number" inputMode="decimal" min={POT_MIN_CM} max={POT_MAX_CM} className="field-input" value={c.widthCm ?? ''} onChange={(e) => setContainer({ widthCm: e.target.value })} />
               </div>
             )}
           </div>

@@ -51,7 +51,7 @@ export function SaveAnswer({
   if (saved && isWaiting(saved)) return <QueuedSave queueKey={saved.id} />;
   if (saved) {
     return (
-      <section className="card border-moss-300 bg-moss-50" role="status" data-testid="saved">
+      <section className="card border-moss-300 bg-moss-50" role="status" data-testid="saved" tabIndex={-1}>
         <p className="text-lg font-semibold">Saved to your answers.</p>
         <Link className="btn-primary mt-3" href={saved.url}>Open the saved answer</Link>
       </section>
@@ -66,6 +66,8 @@ export function SaveAnswer({
       }}
     >
       <h3 className="text-lg">Save this answer</h3>
+      <details>
+        <summary className="min-h-target cursor-pointer py-2.5 font-medium text-moss-700">Add a note or share with the club</summary>
       <div>
         <label htmlFor="save-note" className="field-label">Note (optional)</label>
         <textarea id="save-note" className="field-input" rows={2} maxLength={2000} value={note} onChange={(e) => setNote(e.target.value)} placeholder="e.g. the long shoot on the south side" />
@@ -81,8 +83,9 @@ export function SaveAnswer({
         </select>
         {!online && <p id="save-visibility-why" className="mt-1 text-sm text-stone-700">Sharing needs a connection. Saved now, it is kept for you only; share it from the answer once it is sent.</p>}
       </div>
+      </details>
       {!online && <p className="text-stone-700" data-testid="save-offline-hint">No connection: the answer waits on this phone and is sent when you are back online.</p>}
-      {error && <p role="alert" className="field-error">{error}</p>}
+      {error && <p role="alert" className="field-error" tabIndex={-1}>{error}</p>}
       <button type="submit" className="btn-primary w-full text-lg" disabled={saving}>{saving ? 'Saving…' : online ? 'Save answer' : 'Save on this phone'}</button>
     </form>
   );

@@ -4,9 +4,9 @@ import { useRouter } from 'next/navigation';
 import { sendJson, ApiError } from '@/components/fetcher';
 import { useOnline } from '@/components/offline/offline-banner';
 
-type State = { note: string; followUp: string; visibility: 'private' | 'club' };
+type State = { note: string; followUp: string; visibility: 'private' | 'club'; treeId: string | null };
 
-export function OwnerControls({ id, initial }: { id: string; initial: State }) {
+export function OwnerControls({ id, initial, trees }: { id: string; initial: State; trees: { id: string; name: string }[] }) {
   const router = useRouter();
   const [v, setV] = useState(initial);
   const [status, setStatus] = useState<{ kind: 'idle' | 'saving' | 'saved' | 'error'; message?: string }>({ kind: 'idle' });
@@ -51,6 +51,15 @@ export function OwnerControls({ id, initial }: { id: string; initial: State }) {
           <option value="club">Shared with the club</option>
         </select>
       </div>
+      {trees.length > 0 && (
+        <div>
+          <label htmlFor="answer-tree" className="field-label">Which of your trees</label>
+          <select id="answer-tree" className="field-input" value={v.treeId ?? ''} onChange={(e) => setV({ ...v, treeId: e.target.value || null })}>
+            <option value="">Not one of mine</option>
+            {trees.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
+          </select>
+        </div>
+      )}
       <div className="flex flex-wrap gap-3">
         <button type="submit" className="btn-primary" disabled={status.kind === 'saving' || !online} aria-describedby={online ? undefined : 'owner-offline'}>{status.kind === 'saving' ? 'Saving…' : 'Save changes'}</button>
         {!confirmDelete ? (

@@ -22,11 +22,14 @@ export function SourceMarker({ id, provenance, citation, note, sourceNumber, ali
         type="button"
         aria-describedby={tipId}
         aria-label={`Source: ${label.long}${sourceNumber ? `, source ${sourceNumber}` : ''}`}
-        className={`inline-flex h-7 min-w-7 items-center justify-center rounded-full border px-1.5 text-xs font-semibold ${tone[provenance]}`}
+        // The badge stays small; the button around it is a full 44 px touch target.
+        className="-my-2 inline-flex min-h-target min-w-target items-center justify-center rounded-full"
         data-testid="source-marker"
       >
-        {label.short}
-        {sourceNumber ? <sup className="ml-0.5">{sourceNumber}</sup> : null}
+        <span className={`inline-flex h-7 min-w-7 items-center justify-center rounded-full border px-1.5 text-xs font-semibold ${tone[provenance]}`}>
+          {label.short}
+          {sourceNumber ? <sup className="ml-0.5">{sourceNumber}</sup> : null}
+        </span>
       </button>
       <span
         role="tooltip"
