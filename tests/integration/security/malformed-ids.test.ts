@@ -15,7 +15,7 @@ describe('a malformed id is 404 everywhere', () => {
     it(`${row.route}`, async () => {
       const spec = await row.request(f, 'admin');
       const client = spec.client ?? (await f.client('admin'));
-      const [, param] = /\/api\/(?:[a-z-]+\/)*?(?:answers|trees|uploads|users|notes|species)\/([^/?]+)/.exec(spec.path) ?? [];
+      const [, param] = /\/api\/(?:[a-z-]+\/)*?(?:answers|trees|uploads|users|notes|species|runs)\/([^/?]+)/.exec(spec.path) ?? [];
       expect(param, spec.path).toBeTruthy();
       for (const bad of MALFORMED) {
         const path = spec.path.replace(`/${param}`, `/${bad}`);
