@@ -1,5 +1,4 @@
 'use client';
-import { signOut } from 'next-auth/react';
 import { useState } from 'react';
 
 export function SignOutButton() {
@@ -11,7 +10,8 @@ export function SignOutButton() {
       disabled={pending}
       onClick={() => {
         setPending(true);
-        void signOut({ callbackUrl: '/' });
+        // Loaded on the press, not with every page: public pages carry no sign-in client code.
+        void import('next-auth/react').then(({ signOut }) => signOut({ callbackUrl: '/' }));
       }}
     >
       {pending ? 'Signing out…' : 'Sign out'}
