@@ -2,18 +2,21 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { benchGrowth } from './growth';
-import { benchHttp } from './http';
-import { extra, log, median, printTable, record, rows } from './lib';
+import { benchHttp, evaluateBodies } from './http';
+import { benchSoak } from './soak';
+import { extra, log, median, notAvailable, printTable, record, rows } from './lib';
 import { firstLoadJs, lighthouseScores } from './pages';
 import { benchSearch } from './search';
 import { assertBuilt, seedDemo, startServer } from './server';
 
 // npm run bench — requires an existing build (`npm run build`); builds nothing itself.
 // BENCH_SECONDS shortens each HTTP measurement (default 20 s); BENCH_ONLY=http,search,growth,
-// cold,pages,lighthouse runs a subset. Prints a table against the targets and writes
+// cold,pages,lighthouse runs a subset. BENCH_SOAK=1 adds the ten-minute soak, BENCH_BIG=1 the
+// growth to a million answers. Prints a table against the targets and writes
 // bench/results.json.
 const only = process.env.BENCH_ONLY ? new Set(process.env.BENCH_ONLY.split(',')) : null;
 const want = (s: string) => !only || only.has(s);
+const soak = process.env.BENCH_SOAK === '1';
 
 async function main() {
   assertBuilt();
@@ -23,7 +26,7 @@ async function main() {
     if (want('search')) await benchSearch();
     if (want('growth')) await benchGrowth();
 
-    if (want('http') || want('pages') || want('lighthouse') || want('cold')) {
+    if (want('http') || want('pages') || want('lighthouse') || want('cold') || soak) {
       log('seeding a fresh demo database');
       seedDemo(dataDir);
       const server = await startServer(dataDir);
@@ -32,6 +35,11 @@ async function main() {
         if (want('http')) await benchHttp(server.url);
         if (want('pages')) await firstLoadJs(server.url);
         if (want('lighthouse')) await lighthouseScores(server.url);
+        if (soak) {
+          const bodies = await evaluateBodies(server.url);
+          if (bodies) await benchSoak(server, bodies);
+          else notAvailable('soak', 'mixed traffic', 'the wizard enums are not in this build', '0 errors');
+        }
       } finally {
         await server.stop();
       }

@@ -27,6 +27,8 @@ export function benchEnv(dataDir: string, port: number): NodeJS.ProcessEnv {
     NEXTAUTH_URL: `http://127.0.0.1:${port}`,
     NEXTAUTH_SECRET: randomBytes(32).toString('base64url'),
     MAIL_FAKE: '0',
+    // The soak saves thousands of answers as one member.
+    ANSWER_QUOTA: process.env.ANSWER_QUOTA ?? '10000000',
     SMTP_URL: 'smtp://127.0.0.1:9',
   };
 }
@@ -46,8 +48,9 @@ export function seedDemo(dataDir: string) {
   if (r.status !== 0) throw new Error(`seed failed: ${r.stderr}${r.stdout}`);
 }
 
+/** BENCH_PORT pins the port (on a shared machine each engineer has a range); else any free one. */
 export async function startServer(dataDir: string): Promise<BenchServer> {
-  const port = await freePort();
+  const port = process.env.BENCH_PORT ? Number(process.env.BENCH_PORT) : await freePort();
   const url = `http://127.0.0.1:${port}`;
   const t0 = performance.now();
   const proc = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(port)], {

@@ -1,5 +1,4 @@
 'use client';
-import { signOut } from 'next-auth/react';
 import { useState } from 'react';
 import { clearMemberCaches } from '@/components/offline/member';
 
@@ -12,8 +11,9 @@ export function SignOutButton() {
       disabled={pending}
       onClick={() => {
         setPending(true);
-        // What this member's pages and trees left in the offline caches goes before anyone else signs in.
-        void clearMemberCaches().finally(() => signOut({ callbackUrl: '/' }));
+        // What this member's pages and trees left in the offline caches goes before anyone else signs in;
+        // the sign-in client loads on the press, not with every page.
+        void clearMemberCaches().finally(() => import('next-auth/react').then(({ signOut }) => signOut({ callbackUrl: '/' })));
       }}
     >
       {pending ? 'Signing out…' : 'Sign out'}

@@ -185,9 +185,14 @@ export const noteLinks = pgTable('note_links', {
   noteId: integer('note_id').notNull().references(() => notes.id, { onDelete: 'cascade' }),
   targetType: text('target_type').$type<'answer' | 'species'>().notNull(),
   targetId: text('target_id').notNull(),
+  // Copies of the note's meeting date and published state (lib/data/notes.ts keeps them in step),
+  // so a page's backlinks are the first rows of one index instead of a scan of every note.
+  meetingDate: date('meeting_date'),
+  published: boolean('published').notNull().default(false),
 }, (t) => [
   primaryKey({ columns: [t.noteId, t.targetType, t.targetId] }),
   index('note_links_target_idx').on(t.targetType, t.targetId),
+  index('note_links_backlinks_idx').on(t.targetType, t.targetId, t.published, t.meetingDate.desc(), t.noteId.desc()),
 ]);
 
 export const digestSends = pgTable('digest_sends', {

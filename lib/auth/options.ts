@@ -8,8 +8,9 @@ import { getDb } from '@/db/client';
 import { accounts, sessions, users, verificationTokens } from '@/db/schema';
 import { env } from '@/lib/env';
 import { sessionKey } from '@/lib/auth/secret';
+import { invalidate } from '@/lib/auth/token-cache';
 import { signInSchema } from '@/lib/validation/auth';
-import { bumpTokenVersion, findAuthUserById, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
+import { bumpTokenVersion, findSessionAccount, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
 import { clientIp, recordSignInFailure } from './rate-limit';
 import { sendSignInLink } from '@/lib/mail/templates';
 import { safeCallbackPath } from '@/lib/http/safe-redirect';
@@ -28,7 +29,15 @@ function lazyAdapter(): Adapter {
       (db) => DrizzleAdapter(db, { usersTable: users, accountsTable: accounts, sessionsTable: sessions, verificationTokensTable: verificationTokens } as never) as never,
     ));
   return Object.fromEntries(
-    adapterMethods.map((m) => [m, async (...args: unknown[]) => (await load())[m](...args)]),
+    adapterMethods.map((m) => [
+      m,
+      async (...args: unknown[]) => {
+        const result = await (await load())[m](...args);
+        // The adapter writes accounts too (e-mail sign-in marks the address verified).
+        if (m === 'updateUser' || m === 'deleteUser') invalidate();
+        return result;
+      },
+    ]),
   ) as unknown as Adapter;
 }
 
@@ -95,11 +104,12 @@ export const authOptions: AuthOptions = {
       return user.email ? isEmailAllowedToSignIn(user.email) : false;
     },
     async jwt({ token, user }) {
-      // Re-read the account on every request: a role change, a disable or a sign-out elsewhere
-      // takes effect now, not when the 30-day token runs out.
+      // Check the account on every request: a role change, a disable or a sign-out elsewhere
+      // takes effect now, not when the 30-day token runs out. The account comes from
+      // lib/auth/token-cache.ts, which every write to it invalidates.
       const id = user?.id ?? (typeof token.uid === 'string' ? token.uid : undefined);
       if (!id) return token;
-      const u = await findAuthUserById(id);
+      const u = await findSessionAccount(id);
       const current = u && !u.disabled && (user ? true : u.tokenVersion === token.tv);
       if (!current) {
         delete token.uid;
@@ -109,12 +119,14 @@ export const authOptions: AuthOptions = {
       }
       token.uid = u.id;
       token.role = u.role;
+      token.name = u.name ?? u.email.split('@')[0];
+      token.email = u.email;
       if (user) token.tv = u.tokenVersion;
       return token;
     },
     async session({ session, token }) {
       if (typeof token.uid === 'string') {
-        session.user = { ...session.user, id: token.uid, role: token.role as string };
+        session.user = { ...session.user, id: token.uid, role: token.role as string, name: token.name, email: token.email };
       } else {
         delete (session as { user?: unknown }).user;
       }

@@ -113,6 +113,14 @@ export async function rewriteNoteLinks(tx: Tx, noteId: number, body: string): Pr
     .insert(noteLinks)
     .values(links.map((l) => ({ noteId, targetType: l.type, targetId: l.type === 'answer' ? l.id : l.slug })))
     .onConflictDoNothing();
+  await syncNoteLinkCopies(tx, noteId);
+}
+
+/** Copy the note's meeting date and published state onto its links (the backlinks index reads them). */
+async function syncNoteLinkCopies(tx: Tx, noteId: number): Promise<void> {
+  await tx.execute(sql`
+    update ${noteLinks} set meeting_date = n.meeting_date, published = (n.status = 'published')
+    from ${notes} n where n.id = ${noteLinks.noteId} and ${noteLinks.noteId} = ${noteId}`);
 }
 
 async function freeSlug(tx: Tx, base: string): Promise<string> {
@@ -163,6 +171,7 @@ export async function updateNote(actor: SessionUser, slug: string, patch: NotePa
       .set({ ...fields, updatedAt: now, ...(publishing ? { publishedAt: now } : unpublishing ? { publishedAt: null } : {}) })
       .where(eq(notes.id, cur.id));
     if (fields.body !== undefined) await rewriteNoteLinks(tx, cur.id, fields.body);
+    else await syncNoteLinkCopies(tx, cur.id);
   });
   // The slug stays as created, so links to the note keep working after a title change.
   return getNote(actor, slug);
@@ -182,7 +191,9 @@ export async function getBacklinks(type: 'answer' | 'species', id: string): Prom
     .select({ slug: notes.slug, title: notes.title, meetingDate: notes.meetingDate })
     .from(noteLinks)
     .innerJoin(notes, eq(notes.id, noteLinks.noteId))
-    .where(and(eq(noteLinks.targetType, type), eq(noteLinks.targetId, id), eq(notes.status, 'published')))
-    .orderBy(desc(notes.meetingDate), desc(notes.id))
+    // By note_links_backlinks_idx: the newest hundred links in index order, then each note by its
+    // key (the copies on note_links are kept in step with the note; its own status is checked too).
+    .where(and(eq(noteLinks.targetType, type), eq(noteLinks.targetId, id), eq(noteLinks.published, true), eq(notes.status, 'published')))
+    .orderBy(sql`${noteLinks.meetingDate} desc nulls last`, sql`${noteLinks.noteId} desc nulls last`)
     .limit(100);
 }

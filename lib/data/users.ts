@@ -1,11 +1,12 @@
 import 'server-only';
 import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
-import { getDb } from '@/db/client';
+import { getDb, getDbHandle } from '@/db/client';
 import { users, type Role } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { verifyPassword } from '@/lib/auth/password';
 import type { SessionUser } from '@/lib/auth/session';
 import { assertRole } from '@/lib/auth/roles';
+import { cachedAccount, invalidate, type Account } from '@/lib/auth/token-cache';
 
 export interface UserDto {
   id: string;
@@ -44,26 +45,20 @@ export async function verifyCredentials(email: string, password: string) {
   return { id: u.id, name: u.name, email: u.email, role: u.role, tokenVersion: u.tokenVersion };
 }
 
-/** The user behind a token, if the token is still current: not disabled, same token version. */
-export async function findSessionUser(id: string, tokenVersion: number): Promise<SessionUser | null> {
-  const db = await getDb();
-  const [u] = await db
-    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion })
-    .from(users)
-    .where(eq(users.id, id))
-    .limit(1);
-  if (!u || u.disabled || u.tokenVersion !== tokenVersion) return null;
-  return { id: u.id, name: u.name ?? u.email.split('@')[0], email: u.email, role: u.role, tokenVersion: u.tokenVersion };
-}
-
-export async function findAuthUserById(id: string) {
-  const db = await getDb();
-  const [u] = await db
-    .select({ id: users.id, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion })
-    .from(users)
-    .where(eq(users.id, id))
-    .limit(1);
-  return u ?? null;
+/**
+ * The account behind a session cookie, read at most once per process between writes
+ * (lib/auth/token-cache.ts says when the copy in memory is exact).
+ */
+export async function findSessionAccount(id: string): Promise<Account | null> {
+  const handle = await getDbHandle();
+  return cachedAccount(handle, id, async () => {
+    const [u] = await handle.db
+      .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion })
+      .from(users)
+      .where(eq(users.id, id))
+      .limit(1);
+    return u ?? null;
+  });
 }
 
 export async function isEmailAllowedToSignIn(email: string) {
@@ -82,6 +77,7 @@ export async function hasActiveAccount(email: string) {
 export async function bumpTokenVersion(id: string) {
   const db = await getDb();
   await db.update(users).set({ tokenVersion: sql`${users.tokenVersion} + 1` }).where(eq(users.id, id));
+  invalidate(id);
 }
 
 const sortable = { name: users.name, email: users.email, role: users.role, createdAt: users.createdAt } as const;
@@ -113,6 +109,7 @@ export async function updateUserByAdmin(actor: SessionUser, id: string, patch: {
     .set({ ...patch, tokenVersion: sql`${users.tokenVersion} + 1` })
     .where(eq(users.id, id))
     .returning(dtoColumns);
+  invalidate(id);
   if (!rows[0]) throw new AppError('not_found:user');
   return toDto(rows[0]);
 }
@@ -129,6 +126,7 @@ export async function updateProfile(actor: SessionUser, patch: { name?: string; 
   if (Object.values(patch).every((v) => v === undefined)) return getProfile(actor);
   const db = await getDb();
   const [u] = await db.update(users).set(patch).where(and(eq(users.id, actor.id))).returning(dtoColumns);
+  invalidate(actor.id);
   if (!u) throw new AppError('not_found:user');
   return toDto(u);
 }

@@ -59,8 +59,8 @@ export async function fillAwkwardRows(db: Db) {
     .values({ slug: 'awkward-meeting', title: awkward, meetingDate: '2026-03-14', body: `See [answer](/answers/ans-awkward-1)\n\n${awkward}`, status: 'published', authorId: 'u-awkward-2', publishedAt: new Date('2026-03-15T08:00:00.000Z') })
     .returning({ id: notes.id });
   await db.insert(noteLinks).values([
-    { noteId: note.id, targetType: 'answer', targetId: 'ans-awkward-1' },
-    { noteId: note.id, targetType: 'species', targetId: 'pinus-awkwardii' },
+    { noteId: note.id, targetType: 'answer', targetId: 'ans-awkward-1', meetingDate: '2026-03-14', published: true },
+    { noteId: note.id, targetType: 'species', targetId: 'pinus-awkwardii', meetingDate: '2026-03-14', published: true },
   ]);
   await db.insert(digestSends).values({ noteId: note.id, senderId: 'u-awkward-2', recipients: 3 });
   await db.insert(photos).values({
