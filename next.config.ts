@@ -16,7 +16,13 @@ const nextConfig: NextConfig = {
     return [
       { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: API_POLICY }] },
       // The worker may control the whole site though it is served from /serwist/.
-      { source: '/serwist/:path*', headers: [{ key: 'Service-Worker-Allowed', value: '/' }, { key: 'Cache-Control', value: 'no-cache' }] },
+      {
+        source: '/serwist/:path*',
+        headers: [
+          { key: 'Service-Worker-Allowed', value: '/' },
+          { key: 'Cache-Control', value: 'no-cache' },
+        ],
+      },
       {
         source: '/:path*',
         headers: [

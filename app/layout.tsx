@@ -24,18 +24,18 @@ export default async function RootLayout({ children }: { children: React.ReactNo
     <html lang="en" className={`${sans.variable} ${display.variable}`}>
       <body className="min-h-screen">
         <ServiceWorker>
-        <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
-          Skip to content
-        </a>
-        <SiteHeader />
-        <OfflineBanner />
-        <OfflineSync userId={user?.id ?? null} />
-        <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6 sm:py-10">
-          {children}
-        </main>
-        <footer className="no-print mx-auto max-w-5xl px-4 pb-8 text-sm text-stone-600">
-          Candlewise gives general guidance. Follow fertiliser labels and your local rules on collecting, planting out and chemicals.
-        </footer>
+          <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
+            Skip to content
+          </a>
+          <SiteHeader />
+          <OfflineBanner />
+          <OfflineSync userId={user?.id ?? null} />
+          <main id="main" className="mx-auto w-full max-w-5xl px-4 py-6 sm:py-10">
+            {children}
+          </main>
+          <footer className="no-print mx-auto max-w-5xl px-4 pb-8 text-sm text-stone-600">
+            Candlewise gives general guidance. Follow fertiliser labels and your local rules on collecting, planting out and chemicals.
+          </footer>
         </ServiceWorker>
       </body>
     </html>

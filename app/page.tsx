@@ -15,9 +15,8 @@ export default async function HomePage() {
         <p className="text-sm font-medium uppercase tracking-wide text-bark-700">{settings.clubName}</p>
         <h1 className="text-3xl sm:text-4xl">Know what to do with this shoot, today.</h1>
         <p className="max-w-2xl text-lg text-stone-700">
-          Candlewise tells you whether to pinch, prune, let grow or decandle a pine shoot, from the species, the
-          stage of the tree, the shoot itself and the season, with the reasons and a feeding plan. Every answer
-          is kept in your record, so the club can look back at what was done and what happened.
+          Candlewise tells you whether to pinch, prune, let grow or decandle a pine shoot, from the species, the stage of the tree, the shoot itself and the
+          season, with the reasons and a feeding plan. Every answer is kept in your record, so the club can look back at what was done and what happened.
         </p>
       </section>
       {week ? <ThisWeek items={week} today={today} /> : null}

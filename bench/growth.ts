@@ -55,7 +55,8 @@ export async function benchGrowth() {
   const section = 'data growth';
   const answersLayer = await optional<AnswersLayer>('lib/data/answers');
   const notesLayer = await optional<NotesLayer>('lib/data/notes');
-  if (!answersLayer?.listOwnAnswers) notAvailable(section, 'history page (keyset)', 'lib/data/answers.ts listOwnAnswers is not in this build', `≤ ${TARGET_MS} ms, flat`);
+  if (!answersLayer?.listOwnAnswers)
+    notAvailable(section, 'history page (keyset)', 'lib/data/answers.ts listOwnAnswers is not in this build', `≤ ${TARGET_MS} ms, flat`);
   if (!notesLayer?.getBacklinks) notAvailable(section, 'species backlinks', 'lib/data/notes.ts getBacklinks is not in this build', `≤ ${TARGET_MS} ms, flat`);
   if (!answersLayer?.listOwnAnswers && !notesLayer?.getBacklinks) return;
 
@@ -138,19 +139,34 @@ export async function benchGrowth() {
     const report = (key: 'history' | 'backlinks', name: string) => {
       const at = results.map((r) => r[key] as { median: number; p95: number; plan: string } | undefined);
       if (at.some((x) => !x)) return;
-      at.forEach((x, i) => record({
-        section, name: `${name}, ${SIZES[i].toLocaleString('en')} answers`, value: x!.median, unit: 'ms',
-        target: `≤ ${TARGET_MS} ms`, pass: x!.median <= TARGET_MS, note: `p95 ${round(x!.p95)} ms`,
-      }));
+      at.forEach((x, i) =>
+        record({
+          section,
+          name: `${name}, ${SIZES[i].toLocaleString('en')} answers`,
+          value: x!.median,
+          unit: 'ms',
+          target: `≤ ${TARGET_MS} ms`,
+          pass: x!.median <= TARGET_MS,
+          note: `p95 ${round(x!.p95)} ms`,
+        }),
+      );
       const ratio = at[at.length - 1]!.median / at[0]!.median;
       // The tables that grow with the club's history must be reached by index; a small table
       // (users, notes: one per hundred answers here) may be scanned when the planner finds it cheaper.
       const scans = at.slice(-1).map((x) => /Seq Scan on (answers|note_links)\b/.test(x!.plan));
-      const small = [...new Set(at.slice(-1).flatMap((x) => [...x!.plan.matchAll(/Seq Scan on (\w+)/g)].map((m) => m[1])))].filter((t) => !['answers', 'note_links'].includes(t));
+      const small = [...new Set(at.slice(-1).flatMap((x) => [...x!.plan.matchAll(/Seq Scan on (\w+)/g)].map((m) => m[1])))].filter(
+        (t) => !['answers', 'note_links'].includes(t),
+      );
       record({
-        section, name: `${name}: ${SIZES[SIZES.length - 1].toLocaleString('en')} vs 1 000`, value: round(ratio, 2), unit: '×', target: '≤ 2×, answers/note_links by index',
+        section,
+        name: `${name}: ${SIZES[SIZES.length - 1].toLocaleString('en')} vs 1 000`,
+        value: round(ratio, 2),
+        unit: '×',
+        target: '≤ 2×, answers/note_links by index',
         pass: ratio <= 2 && !scans.some(Boolean),
-        note: (scans.some(Boolean) ? 'sequential scan of answers or note_links' : 'answers and note_links by index') + (small.length ? `; seq scan of small ${small.join(', ')}` : ''),
+        note:
+          (scans.some(Boolean) ? 'sequential scan of answers or note_links' : 'answers and note_links by index') +
+          (small.length ? `; seq scan of small ${small.join(', ')}` : ''),
       });
       console.log(`\nEXPLAIN ANALYZE — ${name} at ${SIZES[SIZES.length - 1].toLocaleString('en')} answers:\n${at[at.length - 1]!.plan}\n`);
     };

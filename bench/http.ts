@@ -62,13 +62,15 @@ export async function evaluateBodies(base: string): Promise<string[] | null> {
   const types = await optional<Record<string, readonly string[]>>('lib/wizard/types');
   const validation = await optional<{ evaluateBodySchema: { safeParse(v: unknown): { success: boolean } } }>('lib/validation/wizard');
   if (!types || !validation) return null;
-  const list = await fetch(`${base}/api/species?limit=100`).then((r) => (r.ok ? r.json() : null)).catch(() => null);
+  const list = await fetch(`${base}/api/species?limit=100`)
+    .then((r) => (r.ok ? r.json() : null))
+    .catch(() => null);
   const slugs: string[] = list?.items?.map((s: { slug: string }) => s.slug) ?? [];
   if (!slugs.length) return null;
   const t = types;
   let seed = 7;
-  const rnd = () => ((seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff);
-  const pick = <T,>(a: readonly T[]) => a[Math.floor(rnd() * a.length)];
+  const rnd = () => (seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff;
+  const pick = <T>(a: readonly T[]) => a[Math.floor(rnd() * a.length)];
   const bodies: string[] = [];
   for (let i = 0; bodies.length < 400 && i < 5000; i++) {
     const month = 1 + Math.floor(rnd() * 12);
@@ -110,34 +112,77 @@ export async function benchHttp(base: string) {
     const ratio = m.reqPerSec / health.reqPerSec;
     record({ section, name: `${name} req/s`, value: m.reqPerSec, unit: 'req/s', pass: null });
     record({
-      section, name: `${name} ratio to health`, value: round(ratio, 2), unit: '×',
-      target: ratioTarget ? `≥ ${ratioTarget}×` : undefined, pass: ratioTarget ? ratio >= ratioTarget : null,
+      section,
+      name: `${name} ratio to health`,
+      value: round(ratio, 2),
+      unit: '×',
+      target: ratioTarget ? `≥ ${ratioTarget}×` : undefined,
+      pass: ratioTarget ? ratio >= ratioTarget : null,
     });
     record({ section, name: `${name} p50`, value: m.p50, unit: 'ms', pass: null });
-    record({ section, name: `${name} p99`, value: m.p99, unit: 'ms', target: p99Target ? `≤ ${p99Target} ms` : undefined, pass: p99Target ? m.p99 <= p99Target : null });
+    record({
+      section,
+      name: `${name} p99`,
+      value: m.p99,
+      unit: 'ms',
+      target: p99Target ? `≤ ${p99Target} ms` : undefined,
+      pass: p99Target ? m.p99 <= p99Target : null,
+    });
     record({ section, name: `${name} errors`, value: m.errors + m.non2xx, unit: `of ${m.total}`, target: '0', pass: m.errors + m.non2xx === 0 });
   };
   record({ section, name: 'GET /api/health req/s', value: health.reqPerSec, unit: 'req/s', pass: null, note: 'the floor' });
   record({ section, name: 'GET /api/health p50', value: health.p50, unit: 'ms', pass: null });
   record({ section, name: 'GET /api/health p99', value: health.p99, unit: 'ms', pass: null });
-  record({ section, name: 'GET /api/health errors', value: health.errors + health.non2xx, unit: `of ${health.total}`, target: '0', pass: health.errors + health.non2xx === 0 });
+  record({
+    section,
+    name: 'GET /api/health errors',
+    value: health.errors + health.non2xx,
+    unit: `of ${health.total}`,
+    target: '0',
+    pass: health.errors + health.non2xx === 0,
+  });
 
   // POST /api/wizard/evaluate with a mix of bodies.
   const bodies = await evaluateBodies(base);
-  const probe = bodies ? await fetch(`${base}/api/wizard/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: bodies[0] }) : null;
+  const probe = bodies
+    ? await fetch(`${base}/api/wizard/evaluate`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: bodies[0] })
+    : null;
   if (!bodies || !probe || probe.status === 404) {
     notAvailable(section, 'POST /api/wizard/evaluate', 'the route or the wizard enums are not in this build', '≥ 0.7× health');
   } else {
     await probe.body?.cancel();
     let i = 0;
-    const m = await measure('POST /api/wizard/evaluate', { method: 'POST', path: '/api/wizard/evaluate', headers: { 'content-type': 'application/json' }, bodies: () => bodies[i++ % bodies.length] });
+    const m = await measure('POST /api/wizard/evaluate', {
+      method: 'POST',
+      path: '/api/wizard/evaluate',
+      headers: { 'content-type': 'application/json' },
+      bodies: () => bodies[i++ % bodies.length],
+    });
     report('POST /api/wizard/evaluate', m, 0.7);
-    tails.push(['POST /api/wizard/evaluate', { method: 'POST', path: '/api/wizard/evaluate', headers: { 'content-type': 'application/json' }, bodies: () => bodies[i++ % bodies.length] }]);
+    tails.push([
+      'POST /api/wizard/evaluate',
+      { method: 'POST', path: '/api/wizard/evaluate', headers: { 'content-type': 'application/json' }, bodies: () => bodies[i++ % bodies.length] },
+    ]);
     extra.evaluateBodies = bodies.length;
   }
 
   // GET /api/species?q=… with typo'd and partial queries.
-  const queries = ['sylvestris', 'mugo', 'thunbergii', 'black pine', 'scots', 'pinus', 'parviflora', 'densiflora', 'juniper', 'larch', 'sylvestri', 'thunbergi', 'blak pine', 'mug'];
+  const queries = [
+    'sylvestris',
+    'mugo',
+    'thunbergii',
+    'black pine',
+    'scots',
+    'pinus',
+    'parviflora',
+    'densiflora',
+    'juniper',
+    'larch',
+    'sylvestri',
+    'thunbergi',
+    'blak pine',
+    'mug',
+  ];
   const sp = await fetch(`${base}/api/species?q=mugo`);
   if (sp.status === 404) {
     notAvailable(section, 'GET /api/species?q=', 'the route is not in this build', '≥ 0.7× health');
@@ -148,7 +193,10 @@ export async function benchHttp(base: string) {
     // autocannon rotates paths through setupRequest as well.
     const m = await measureWithPaths('GET /api/species?q=', () => `/api/species?q=${encodeURIComponent(queries[i++ % queries.length])}`, route);
     report('GET /api/species?q=', m, 0.7);
-    tails.push(['GET /api/species?q=', { method: 'GET', path: route.path, paths: () => `/api/species?q=${encodeURIComponent(queries[i++ % queries.length])}` }]);
+    tails.push([
+      'GET /api/species?q=',
+      { method: 'GET', path: route.path, paths: () => `/api/species?q=${encodeURIComponent(queries[i++ % queries.length])}` },
+    ]);
   }
 
   // A signed-in member's first page of answers.
@@ -170,7 +218,7 @@ export async function benchHttp(base: string) {
     const reads: [string, string | undefined][] = [
       ['GET /api/answers/[id] (signed in)', first.items?.[0] ? `/api/answers/${first.items[0].id}` : undefined],
       ['GET /api/trees (signed in)', '/api/trees'],
-      ["GET /api/trees/[id]/plan (signed in)", treeId ? `/api/trees/${treeId}/plan` : undefined],
+      ['GET /api/trees/[id]/plan (signed in)', treeId ? `/api/trees/${treeId}/plan` : undefined],
       ['GET /api/notes (signed in)', '/api/notes'],
     ];
     for (const [name, path] of reads) {
@@ -193,8 +241,23 @@ export async function benchHttp(base: string) {
     const ratio = m.p99 / Math.max(m.p50, 1);
     record({ section: 'tail', name: `${name} p50 @${TAIL_CONNECTIONS}`, value: m.p50, unit: 'ms', pass: null });
     record({ section: 'tail', name: `${name} p99 @${TAIL_CONNECTIONS}`, value: m.p99, unit: 'ms', pass: null });
-    record({ section: 'tail', name: `${name} p99 ÷ p50 @${TAIL_CONNECTIONS}`, value: round(ratio, 2), unit: '×', target: '≤ 3×', pass: ratio <= 3, note: m.p50 < 1 ? 'p50 under 1 ms, counted as 1 ms' : undefined });
-    record({ section: 'tail', name: `${name} errors @${TAIL_CONNECTIONS}`, value: m.errors + m.non2xx, unit: `of ${m.total}`, target: '0', pass: m.errors + m.non2xx === 0 });
+    record({
+      section: 'tail',
+      name: `${name} p99 ÷ p50 @${TAIL_CONNECTIONS}`,
+      value: round(ratio, 2),
+      unit: '×',
+      target: '≤ 3×',
+      pass: ratio <= 3,
+      note: m.p50 < 1 ? 'p50 under 1 ms, counted as 1 ms' : undefined,
+    });
+    record({
+      section: 'tail',
+      name: `${name} errors @${TAIL_CONNECTIONS}`,
+      value: m.errors + m.non2xx,
+      unit: `of ${m.total}`,
+      target: '0',
+      pass: m.errors + m.non2xx === 0,
+    });
   }
   extra.http = { connections: CONNECTIONS, tailConnections: TAIL_CONNECTIONS, seconds: SECONDS, warmupSeconds: WARMUP, results: out };
 
@@ -210,7 +273,14 @@ export async function benchHttp(base: string) {
     await go(WARMUP);
     log(`measure ${name} (${SECONDS} s, ${CONNECTIONS} connections)`);
     const r = await go(SECONDS);
-    const m = { reqPerSec: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, errors: r.errors + r.timeouts, non2xx: r.non2xx, total: r.requests.total };
+    const m = {
+      reqPerSec: r.requests.average,
+      p50: r.latency.p50,
+      p99: r.latency.p99,
+      errors: r.errors + r.timeouts,
+      non2xx: r.non2xx,
+      total: r.requests.total,
+    };
     out[name] = m;
     return m;
   }

@@ -41,7 +41,11 @@ export function printTable() {
   const table = rows.map((r) => [r.section, r.name, fmt(r), r.target ?? '', mark(r), r.note ?? '']);
   const head = ['section', 'measure', 'value', 'target', '', 'note'];
   const widths = head.map((h, i) => Math.min(60, Math.max(h.length, ...table.map((t) => t[i].length))));
-  const line = (cells: string[]) => cells.map((c, i) => c.padEnd(widths[i])).join('  ').trimEnd();
+  const line = (cells: string[]) =>
+    cells
+      .map((c, i) => c.padEnd(widths[i]))
+      .join('  ')
+      .trimEnd();
   console.log('');
   console.log(line(head));
   console.log(widths.map((w) => '-'.repeat(w)).join('  '));

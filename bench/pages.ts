@@ -3,7 +3,7 @@ import { extra, log, notAvailable, record, round } from './lib';
 
 // Pages: the JavaScript a first visit downloads (every script the server-rendered HTML loads,
 // summed, raw and gzip), and Lighthouse scores with Debian's Chromium.
-export const PAGES = ['/', '/species', '/ask', '/species/pinus-thunbergii'];
+const PAGES = ['/', '/species', '/ask', '/species/pinus-thunbergii'];
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
 export async function firstLoadJs(base: string) {
@@ -34,7 +34,15 @@ export async function firstLoadJs(base: string) {
     }
     // Inline scripts (the streamed RSC payload and bootstrap) count too.
     const inline = [...html.matchAll(/<script(?![^>]*\ssrc=)[^>]*>([\s\S]*?)<\/script>/g)].reduce((n, m) => n + Buffer.byteLength(m[1]), 0);
-    record({ section, name: `first-load JS ${page}`, value: round(gz / 1024, 1), unit: 'kB gzip', target: page === '/' ? '≤ 130 kB' : undefined, pass: page === '/' ? gz / 1024 <= 130 : null, note: `${srcs.size} scripts, ${round(raw / 1024, 1)} kB raw, +${round(inline / 1024, 1)} kB inline${legacy ? `, ${legacy} nomodule not counted` : ''}` });
+    record({
+      section,
+      name: `first-load JS ${page}`,
+      value: round(gz / 1024, 1),
+      unit: 'kB gzip',
+      target: page === '/' ? '≤ 130 kB' : undefined,
+      pass: page === '/' ? gz / 1024 <= 130 : null,
+      note: `${srcs.size} scripts, ${round(raw / 1024, 1)} kB raw, +${round(inline / 1024, 1)} kB inline${legacy ? `, ${legacy} nomodule not counted` : ''}`,
+    });
     out[page] = { scripts: [...srcs], rawBytes: raw, gzipBytes: gz, inlineBytes: inline };
   }
   extra.firstLoadJs = out;
@@ -42,7 +50,10 @@ export async function firstLoadJs(base: string) {
 
 export async function lighthouseScores(base: string) {
   const section = 'lighthouse';
-  let lighthouse: (url: string, flags: Record<string, unknown>) => Promise<{ lhr: { categories: Record<string, { score: number | null }>; audits: Record<string, { numericValue?: number }> } } | undefined>;
+  let lighthouse: (
+    url: string,
+    flags: Record<string, unknown>,
+  ) => Promise<{ lhr: { categories: Record<string, { score: number | null }>; audits: Record<string, { numericValue?: number }> } } | undefined>;
   let chromeLauncher: typeof import('chrome-launcher');
   try {
     lighthouse = (await import('lighthouse')).default as unknown as typeof lighthouse;
@@ -77,16 +88,38 @@ export async function lighthouseScores(base: string) {
       const bp = score('best-practices');
       const cls = r.lhr.audits['cumulative-layout-shift']?.numericValue ?? NaN;
       record({ section, name: `${page} CLS`, value: round(cls, 3), unit: '', target: '≤ 0.05', pass: cls <= 0.05 });
-      record({ section, name: `${page} performance`, value: perf, unit: '', target: '≥ 95', pass: perf >= 95, note: `LCP ${metric('largest-contentful-paint')} ms, TBT ${metric('total-blocking-time')} ms, CLS ${r.lhr.audits['cumulative-layout-shift']?.numericValue?.toFixed(3)}` });
+      record({
+        section,
+        name: `${page} performance`,
+        value: perf,
+        unit: '',
+        target: '≥ 95',
+        pass: perf >= 95,
+        note: `LCP ${metric('largest-contentful-paint')} ms, TBT ${metric('total-blocking-time')} ms, CLS ${r.lhr.audits['cumulative-layout-shift']?.numericValue?.toFixed(3)}`,
+      });
       record({ section, name: `${page} accessibility`, value: a11y, unit: '', target: '≥ 95', pass: a11y >= 95 });
       record({ section, name: `${page} best practices`, value: bp, unit: '', pass: null });
       out[page] = {
-        performance: perf, accessibility: a11y, bestPractices: bp,
-        lcpMs: metric('largest-contentful-paint'), fcpMs: metric('first-contentful-paint'), tbtMs: metric('total-blocking-time'), si: metric('speed-index'),
+        performance: perf,
+        accessibility: a11y,
+        bestPractices: bp,
+        lcpMs: metric('largest-contentful-paint'),
+        fcpMs: metric('first-contentful-paint'),
+        tbtMs: metric('total-blocking-time'),
+        si: metric('speed-index'),
         failedAudits: Object.entries(r.lhr.audits as Record<string, { score: number | null; title?: string; scoreDisplayMode?: string }>)
-          .filter(([, a]) => a.score !== null && a.score < 0.9 && a.scoreDisplayMode !== 'informative' && a.scoreDisplayMode !== 'manual' && a.scoreDisplayMode !== 'notApplicable')
+          .filter(
+            ([, a]) =>
+              a.score !== null &&
+              a.score < 0.9 &&
+              a.scoreDisplayMode !== 'informative' &&
+              a.scoreDisplayMode !== 'manual' &&
+              a.scoreDisplayMode !== 'notApplicable',
+          )
           .map(([k, a]) => `${k}: ${a.title} (${a.score})`),
-        consoleErrors: ((r.lhr.audits['errors-in-console'] as { details?: { items?: { description?: string; source?: string }[] } })?.details?.items ?? []).map((i) => `${i.source}: ${i.description}`),
+        consoleErrors: ((r.lhr.audits['errors-in-console'] as { details?: { items?: { description?: string; source?: string }[] } })?.details?.items ?? []).map(
+          (i) => `${i.source}: ${i.description}`,
+        ),
       };
     }
   } finally {

@@ -52,7 +52,15 @@ async function main() {
           await s.stop();
         }
         const m = median(times);
-        record({ section: 'cold start', name: 'process start → first 200 /api/health', value: m, unit: 'ms', target: '≤ 2000 ms', pass: m <= 2000, note: `median of 3: ${times.map((t) => Math.round(t)).join(', ')} ms` });
+        record({
+          section: 'cold start',
+          name: 'process start → first 200 /api/health',
+          value: m,
+          unit: 'ms',
+          target: '≤ 2000 ms',
+          pass: m <= 2000,
+          note: `median of 3: ${times.map((t) => Math.round(t)).join(', ')} ms`,
+        });
       }
     }
   } finally {
@@ -63,7 +71,13 @@ async function main() {
   const results = {
     startedAt: started.toISOString(),
     finishedAt: new Date().toISOString(),
-    machine: { cpus: os.cpus().length, cpuModel: os.cpus()[0]?.model, memGb: Math.round(os.totalmem() / 2 ** 30), node: process.version, loadAverageAtEnd: os.loadavg() },
+    machine: {
+      cpus: os.cpus().length,
+      cpuModel: os.cpus()[0]?.model,
+      memGb: Math.round(os.totalmem() / 2 ** 30),
+      node: process.version,
+      loadAverageAtEnd: os.loadavg(),
+    },
     rows,
     details: extra,
   };

@@ -21,7 +21,34 @@ interface Rec {
   synonyms: string[];
 }
 
-const syllables = ['al', 'ba', 'cor', 'den', 'el', 'fi', 'gra', 'hal', 'ir', 'ju', 'ka', 'lo', 'mu', 'nor', 'pa', 'qui', 'ra', 'sil', 'tu', 'ver', 'xan', 'yo', 'zel', 'ri', 'ca', 'na'];
+const syllables = [
+  'al',
+  'ba',
+  'cor',
+  'den',
+  'el',
+  'fi',
+  'gra',
+  'hal',
+  'ir',
+  'ju',
+  'ka',
+  'lo',
+  'mu',
+  'nor',
+  'pa',
+  'qui',
+  'ra',
+  'sil',
+  'tu',
+  'ver',
+  'xan',
+  'yo',
+  'zel',
+  'ri',
+  'ca',
+  'na',
+];
 const genera = ['Pinus', 'Picea', 'Abies', 'Larix', 'Juniperus', 'Cedrus', 'Tsuga', 'Taxus', 'Cryptomeria', 'Chamaecyparis', 'Sequoia', 'Thuja'];
 const adjectives = ['black', 'red', 'white', 'mountain', 'coastal', 'dwarf', 'weeping', 'silver', 'blue', 'golden', 'river', 'stone', 'creeping', 'tall'];
 const nouns = ['pine', 'spruce', 'fir', 'larch', 'juniper', 'cedar', 'hemlock', 'yew', 'cypress'];
@@ -37,9 +64,9 @@ function rng(seed: number) {
   };
 }
 
-export function generateSpecies(n: number, seed = 1): Rec[] {
+function generateSpecies(n: number, seed = 1): Rec[] {
   const r = rng(seed);
-  const pick = <T,>(a: T[]) => a[Math.floor(r() * a.length)];
+  const pick = <T>(a: T[]) => a[Math.floor(r() * a.length)];
   const word = (k: number) => Array.from({ length: k }, () => pick(syllables)).join('');
   const out: Rec[] = [];
   const seen = new Set<string>();
@@ -72,7 +99,7 @@ function typo(s: string, r: () => number) {
 }
 
 /** Typo queries, each with the species it was made from. */
-export function typoQueries(items: Rec[], n = 200, seed = 2): { q: string; slug: string }[] {
+function typoQueries(items: Rec[], n = 200, seed = 2): { q: string; slug: string }[] {
   const r = rng(seed);
   return Array.from({ length: n }, () => {
     const it = items[Math.floor(r() * items.length)];
@@ -109,13 +136,18 @@ function shortlistFuse(items: Rec[], app: AppSearch) {
   const byGram = new Map<string, number[]>();
   items.forEach((it, i) => {
     const grams = new Set<string>();
-    for (const name of [it.botanicalName, ...it.commonNames, ...it.synonyms]) for (const w of app.normalizeText(name).split(' ')) for (const g of app.trigrams(w)) grams.add(g);
+    for (const name of [it.botanicalName, ...it.commonNames, ...it.synonyms])
+      for (const w of app.normalizeText(name).split(' ')) for (const g of app.trigrams(w)) grams.add(g);
     for (const g of grams) (byGram.get(g) ?? byGram.set(g, []).get(g)!).push(i);
   });
   return (q: string) => {
     const counts = new Map<number, number>();
-    for (const w of app.normalizeText(q).split(' ')) for (const g of app.trigrams(w)) for (const i of byGram.get(g) ?? []) counts.set(i, (counts.get(i) ?? 0) + 1);
-    const short = [...counts].sort((a, b) => b[1] - a[1]).slice(0, 50).map(([i]) => items[i]);
+    for (const w of app.normalizeText(q).split(' '))
+      for (const g of app.trigrams(w)) for (const i of byGram.get(g) ?? []) counts.set(i, (counts.get(i) ?? 0) + 1);
+    const short = [...counts]
+      .sort((a, b) => b[1] - a[1])
+      .slice(0, 50)
+      .map(([i]) => items[i]);
     return new Fuse(short, fuseOptions).search(q).map((r) => r.item.slug);
   };
 }
@@ -185,12 +217,23 @@ export async function benchSearch() {
   const section = 'search';
   const app = await optional<AppSearch>('lib/species/search');
   if (!app || typeof app.buildSpeciesIndex !== 'function') {
-    record({ section, name: 'species ranking', value: null, unit: '', pass: null, note: 'not available: lib/species/search.ts has no word-level ranking in this build' });
+    record({
+      section,
+      name: 'species ranking',
+      value: null,
+      unit: '',
+      pass: null,
+      note: 'not available: lib/species/search.ts has no word-level ranking in this build',
+    });
     return;
   }
-  extra.searchEngines = 'app: lib/species/search.ts (trigram shortlist of name words + edit distance); fuse: Fuse.createIndex kept; fuse+shortlist: 50 species by shared trigrams → fuse; pg_trgm: PGlite word_similarity, GIN index';
+  extra.searchEngines =
+    'app: lib/species/search.ts (trigram shortlist of name words + edit distance); fuse: Fuse.createIndex kept; fuse+shortlist: 50 species by shared trigrams → fuse; pg_trgm: PGlite word_similarity, GIN index';
   const results: Record<string, unknown> = {};
-  for (const [n, target] of [[1_000, 5], [10_000, 30]] as const) {
+  for (const [n, target] of [
+    [1_000, 5],
+    [10_000, 30],
+  ] as const) {
     const items = generateSpecies(n);
     const queries = typoQueries(items);
     const t0 = performance.now();
@@ -242,7 +285,9 @@ export async function benchSearch() {
       });
       results[n] = {
         queries: queries.slice(0, 10),
-        engines: Object.fromEntries(Object.entries(measured).map(([k, v]) => [k, { p50: v.p50, p95: v.p95, cpuP95: v.cpuP95, max: v.max, top1: v.top1, top10: v.top10 }])),
+        engines: Object.fromEntries(
+          Object.entries(measured).map(([k, v]) => [k, { p50: v.p50, p95: v.p95, cpuP95: v.cpuP95, max: v.max, top1: v.top1, top10: v.top10 }]),
+        ),
         builds,
         agreementAppPgTrgm: agree,
       };

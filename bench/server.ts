@@ -15,7 +15,7 @@ export interface BenchServer {
   stop(): Promise<void>;
 }
 
-export function benchEnv(dataDir: string, port: number): NodeJS.ProcessEnv {
+function benchEnv(dataDir: string, port: number): NodeJS.ProcessEnv {
   return {
     ...process.env,
     NODE_ENV: 'production',

@@ -40,7 +40,7 @@ export async function benchSoak(server: BenchServer, evaluateBodies: string[]) {
   const saved: string[] = [];
   let saveFailures = 0;
   let seed = 11;
-  const rnd = () => ((seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff);
+  const rnd = () => (seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff;
   let n = 0;
 
   const samples: { t: number; mb: number }[] = [];
@@ -79,7 +79,14 @@ export async function benchSoak(server: BenchServer, evaluateBodies: string[]) {
   samples.push({ t: (Date.now() - t0) / 1000, mb: rssMb(pid) });
 
   const errors = result.errors + result.timeouts + result.non2xx;
-  record({ section, name: 'requests', value: result.requests.total, unit: `in ${SECONDS} s`, pass: null, note: `${round(result.requests.average, 0)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms` });
+  record({
+    section,
+    name: 'requests',
+    value: result.requests.total,
+    unit: `in ${SECONDS} s`,
+    pass: null,
+    note: `${round(result.requests.average, 0)} req/s, p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms`,
+  });
   record({ section, name: 'errors (network, timeouts, non-2xx)', value: errors, unit: `of ${result.requests.total}`, target: '0', pass: errors === 0 });
 
   const afterMinute = samples.find((s) => s.t >= 60) ?? samples[0];
@@ -96,6 +103,14 @@ export async function benchSoak(server: BenchServer, evaluateBodies: string[]) {
     await r.body?.cancel();
     if (r.status !== 200) unreadable++;
   }
-  record({ section, name: 'saved answers readable afterwards', value: saved.length - unreadable, unit: `of ${saved.length}`, target: 'all', pass: saved.length > 0 && unreadable === 0, note: saveFailures ? `${saveFailures} saves failed` : undefined });
+  record({
+    section,
+    name: 'saved answers readable afterwards',
+    value: saved.length - unreadable,
+    unit: `of ${saved.length}`,
+    target: 'all',
+    pass: saved.length > 0 && unreadable === 0,
+    note: saveFailures ? `${saveFailures} saves failed` : undefined,
+  });
   extra.soak = { connections: CONNECTIONS, seconds: SECONDS, memory: samples, latency: result.latency, saved: saved.length };
 }

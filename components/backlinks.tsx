@@ -17,7 +17,9 @@ export async function Backlinks({ type, id }: { type: 'answer' | 'species'; id: 
   if (links.length === 0) return null;
   return (
     <section aria-labelledby={`backlinks-${type}`} className="card space-y-2" data-testid="backlinks">
-      <h2 id={`backlinks-${type}`} className="text-xl">At club meetings</h2>
+      <h2 id={`backlinks-${type}`} className="text-xl">
+        At club meetings
+      </h2>
       <ul className="space-y-1">
         {links.map((l) => (
           <li key={l.slug}>

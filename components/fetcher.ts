@@ -4,7 +4,10 @@ export interface ApiErrorBody {
 }
 
 export class ApiError extends Error {
-  constructor(readonly status: number, readonly body: ApiErrorBody['error']) {
+  constructor(
+    readonly status: number,
+    readonly body: ApiErrorBody['error'],
+  ) {
     super(body.message);
   }
 }

@@ -8,7 +8,13 @@ export function FocusNotice({ children, tone = 'ok' }: { children: ReactNode; to
     ref.current?.focus();
   }, [children]);
   return (
-    <p ref={ref} tabIndex={-1} role="status" data-testid="focus-notice" className={`rounded-lg border p-3 ${tone === 'ok' ? 'border-moss-500 bg-moss-50 text-moss-900' : 'border-clay-500 bg-clay-100 text-clay-700'}`}>
+    <p
+      ref={ref}
+      tabIndex={-1}
+      role="status"
+      data-testid="focus-notice"
+      className={`rounded-lg border p-3 ${tone === 'ok' ? 'border-moss-500 bg-moss-50 text-moss-900' : 'border-clay-500 bg-clay-100 text-clay-700'}`}
+    >
       {children}
     </p>
   );

@@ -17,7 +17,9 @@ export function HeaderMenu({ children }: { children: ReactNode }) {
         data-testid="menu-button"
         onClick={() => setOpen(!open)}
       >
-        <svg viewBox="0 0 20 20" className="h-5 w-5" aria-hidden="true"><path d="M3 5h14M3 10h14M3 15h14" stroke="currentColor" strokeWidth="2" strokeLinecap="round" /></svg>
+        <svg viewBox="0 0 20 20" className="h-5 w-5" aria-hidden="true">
+          <path d="M3 5h14M3 10h14M3 15h14" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
+        </svg>
         Menu
       </button>
       <div

@@ -37,7 +37,9 @@ export async function SiteHeader() {
             {user ? (
               <>
                 <span data-testid="current-user">
-                  <Link href="/profile" className="inline-flex min-h-target items-center font-medium text-white">{user.name}</Link>
+                  <Link href="/profile" className="inline-flex min-h-target items-center font-medium text-white">
+                    {user.name}
+                  </Link>
                   <span className="ml-2 rounded bg-moss-900/60 px-2 py-0.5 text-xs" data-testid="current-role">
                     {roleLabels[user.role]}
                   </span>
@@ -46,8 +48,12 @@ export async function SiteHeader() {
               </>
             ) : (
               <>
-                <Link href="/sign-in" className="inline-flex min-h-target items-center font-medium text-white">Sign in</Link>
-                <Link href="/sign-up" className="inline-flex min-h-target items-center rounded-lg bg-white px-3 font-medium text-moss-800 no-underline">Join</Link>
+                <Link href="/sign-in" className="inline-flex min-h-target items-center font-medium text-white">
+                  Sign in
+                </Link>
+                <Link href="/sign-up" className="inline-flex min-h-target items-center rounded-lg bg-white px-3 font-medium text-moss-800 no-underline">
+                  Join
+                </Link>
               </>
             )}
           </div>

@@ -38,7 +38,9 @@ export function SortableTable<T>({
                   {h.column.getCanSort() ? (
                     <button type="button" className="inline-flex min-h-target items-center gap-1 font-semibold" onClick={h.column.getToggleSortingHandler()}>
                       {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden className="inline-block w-3 text-stone-600">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
+                      <span aria-hidden className="inline-block w-3 text-stone-600">
+                        {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}
+                      </span>
                     </button>
                   ) : (
                     <span className="font-semibold">{flexRender(h.column.columnDef.header, h.getContext())}</span>

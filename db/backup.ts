@@ -12,7 +12,7 @@ import type { Db } from './open';
 // A manifest of row counts and per-table checksums (md5 of the ordered rows) goes beside both so
 // a restore can prove it brought back exactly what was saved.
 
-export type Row = Record<string, unknown>;
+type Row = Record<string, unknown>;
 /** Runs `fn` inside one read-only, repeatable-read transaction with a fixed output format. */
 export type Snapshotter = <T>(fn: (query: (text: string) => Promise<Row[]>) => Promise<T>) => Promise<T>;
 
@@ -45,7 +45,7 @@ export function snapshotterForPglite(pg: import('@electric-sql/pglite').PGlite):
     });
 }
 
-export interface TableInfo {
+interface TableInfo {
   schema: string;
   name: string;
   columns: string[];
@@ -62,7 +62,7 @@ const qname = (t: { schema: string; name: string }) => `${qi(t.schema)}.${qi(t.n
 const key = (t: { schema: string; name: string }) => `${t.schema}.${t.name}`;
 
 /** Every base table in our schemas, parents before children. */
-export async function listTables(query: (text: string) => Promise<Row[]>): Promise<TableInfo[]> {
+async function listTables(query: (text: string) => Promise<Row[]>): Promise<TableInfo[]> {
   const inList = SCHEMAS.map((s) => `'${s}'`).join(',');
   const tables = await query(`
     select n.nspname::text as schema, c.relname::text as name, c.oid::int as oid
@@ -115,7 +115,7 @@ export async function listTables(query: (text: string) => Promise<Row[]>): Promi
 
 const orderBy = (t: TableInfo) => (t.primaryKey.length ? t.primaryKey : t.columns).map(qi).join(', ');
 
-export interface TableChecksum {
+interface TableChecksum {
   rows: number;
   md5: string;
 }
@@ -126,9 +126,7 @@ export async function tableChecksums(snapshot: Snapshotter): Promise<Checksums> 
   return snapshot(async (query) => {
     const out: Checksums = {};
     for (const t of await listTables(query)) {
-      const [r] = await query(
-        `select count(*)::int as rows, md5(coalesce(string_agg(x::text, E'\\n' order by ${orderBy(t)}), '')) as md5 from ${qname(t)} x`,
-      );
+      const [r] = await query(`select count(*)::int as rows, md5(coalesce(string_agg(x::text, E'\\n' order by ${orderBy(t)}), '')) as md5 from ${qname(t)} x`);
       out[key(t)] = { rows: Number(r.rows), md5: String(r.md5) };
     }
     return out;
@@ -141,7 +139,7 @@ interface Migration {
   hash: string;
 }
 
-export function readMigrations(folder = path.resolve(process.cwd(), 'db/migrations')): Migration[] {
+function readMigrations(folder = path.resolve(process.cwd(), 'db/migrations')): Migration[] {
   const journal = JSON.parse(fs.readFileSync(path.join(folder, 'meta/_journal.json'), 'utf8')) as { entries: { tag: string }[] };
   return journal.entries.map(({ tag }) => {
     const text = fs.readFileSync(path.join(folder, `${tag}.sql`), 'utf8');
@@ -196,7 +194,14 @@ export async function dumpSql(snapshot: Snapshotter, opts: { migrationsFolder?: 
       out.push(`-- data: ${key(t)} (${values.length} rows)`);
       const head = `INSERT INTO ${qname(t)} (${t.columns.map(qi).join(', ')}) VALUES\n`;
       for (let i = 0; i < values.length; i += ROWS_PER_INSERT) {
-        out.push(head + values.slice(i, i + ROWS_PER_INSERT).map((r) => `  ${r.v}`).join(',\n') + ';');
+        out.push(
+          head +
+            values
+              .slice(i, i + ROWS_PER_INSERT)
+              .map((r) => `  ${r.v}`)
+              .join(',\n') +
+            ';',
+        );
       }
       for (const c of t.serialColumns) {
         out.push(
@@ -221,7 +226,10 @@ export interface Manifest {
 
 /** `candlewise-20261202T061500Z` */
 export function backupBaseName(now = new Date()) {
-  return `candlewise-${now.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z')}`;
+  return `candlewise-${now
+    .toISOString()
+    .replace(/[-:]/g, '')
+    .replace(/\.\d+Z$/, 'Z')}`;
 }
 
 /** The manifest written beside a backup file, if there is one. */

@@ -34,7 +34,10 @@ async function seedUsers(db: Db) {
 }
 
 async function seedSettings(db: Db) {
-  await db.insert(clubSettings).values({ id: 1, ...demoClub }).onConflictDoNothing({ target: clubSettings.id });
+  await db
+    .insert(clubSettings)
+    .values({ id: 1, ...demoClub })
+    .onConflictDoNothing({ target: clubSettings.id });
 }
 
 /** Further seeders (species, demo trees and answers, notes) register here in order. */

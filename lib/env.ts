@@ -18,7 +18,12 @@ const schema = z.object({
   UPLOADS_DIR: z.string().min(1).default('./data/uploads'),
   // Photos in an S3-compatible store instead of UPLOADS_DIR when both S3_URL and S3_BUCKET are set.
   S3_URL: z.string().url().optional(),
-  S3_BUCKET: z.string().min(3).max(63).regex(/^[a-z0-9][a-z0-9.-]+[a-z0-9]$/, { error: 'S3_BUCKET: 3 to 63 lower-case letters, digits, dots or hyphens.' }).optional(),
+  S3_BUCKET: z
+    .string()
+    .min(3)
+    .max(63)
+    .regex(/^[a-z0-9][a-z0-9.-]+[a-z0-9]$/, { error: 'S3_BUCKET: 3 to 63 lower-case letters, digits, dots or hyphens.' })
+    .optional(),
   S3_REGION: z.string().min(1).optional(),
   S3_ACCESS_KEY_ID: z.string().min(1).optional(),
   S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),

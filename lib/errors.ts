@@ -2,15 +2,7 @@
 // the kind decides the HTTP status, the subject says what it was about.
 
 export type ErrorKind =
-  | 'bad_request'
-  | 'invalid'
-  | 'unauthorized'
-  | 'forbidden'
-  | 'not_found'
-  | 'conflict'
-  | 'payload_too_large'
-  | 'unsupported_media_type'
-  | 'rate_limited';
+  'bad_request' | 'invalid' | 'unauthorized' | 'forbidden' | 'not_found' | 'conflict' | 'payload_too_large' | 'unsupported_media_type' | 'rate_limited';
 
 const statusOf: Record<ErrorKind, number> = {
   bad_request: 400,

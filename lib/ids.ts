@@ -4,7 +4,10 @@ import { AppError } from '@/lib/errors';
 // Web Crypto only (no node:crypto), so the patterns can be imported by client forms too.
 function randomBase64url(bytes: number): string {
   const b = crypto.getRandomValues(new Uint8Array(bytes));
-  return btoa(String.fromCharCode(...b)).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
+  return btoa(String.fromCharCode(...b))
+    .replace(/\+/g, '-')
+    .replace(/\//g, '_')
+    .replace(/=+$/, '');
 }
 
 // Every id the app hands out: how it is made and what it looks like. A value that does not look

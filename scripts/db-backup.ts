@@ -33,7 +33,12 @@ async function main() {
     const manifest: Manifest = { format: 'candlewise-backup/1', createdAt: new Date().toISOString(), source: handle.kind, files, tables };
     fs.writeFileSync(`${base}.manifest.json`, JSON.stringify(manifest, null, 2) + '\n');
     const rows = Object.values(tables).reduce((s, t) => s + t.rows, 0);
-    console.log(`backup written: ${[files.tarball, files.sql].filter(Boolean).map((f) => path.join(dir, f!)).join(', ')}`);
+    console.log(
+      `backup written: ${[files.tarball, files.sql]
+        .filter(Boolean)
+        .map((f) => path.join(dir, f!))
+        .join(', ')}`,
+    );
     console.log(`${Object.keys(tables).length} tables, ${rows} rows; checksums in ${base}.manifest.json`);
   } finally {
     await handle.close();

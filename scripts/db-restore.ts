@@ -13,7 +13,8 @@ async function main() {
     throw new Error('Name the backup to restore: npm run db:restore -- backups/candlewise-<time>.tar.gz (or .sql)');
   }
   const isTarball = file.endsWith('.tar.gz');
-  if (isTarball && env.DATABASE_URL) throw new Error('A PGlite tarball restores into PGLITE_DIR; unset DATABASE_URL, or restore the .sql dump into PostgreSQL.');
+  if (isTarball && env.DATABASE_URL)
+    throw new Error('A PGlite tarball restores into PGLITE_DIR; unset DATABASE_URL, or restore the .sql dump into PostgreSQL.');
 
   const restored = env.DATABASE_URL
     ? await restoreSqlToPostgres(file, env.DATABASE_URL)

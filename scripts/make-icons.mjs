@@ -14,6 +14,9 @@ const out = [
   ['public/icons/maskable-512.png', maskable, 512],
 ];
 for (const [file, svg, size] of out) {
-  await sharp(Buffer.from(svg), { density: 72 * (size / 32) }).resize(size, size).png().toFile(file);
+  await sharp(Buffer.from(svg), { density: 72 * (size / 32) })
+    .resize(size, size)
+    .png()
+    .toFile(file);
   console.log('wrote', file);
 }

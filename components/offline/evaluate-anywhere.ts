@@ -27,7 +27,7 @@ export function isWorkedOutOnPhone(result: WizardResult | null | undefined): boo
 }
 
 /** A failure to reach the server at all, as opposed to an answer from it. */
-export function isNetworkFailure(e: unknown): boolean {
+function isNetworkFailure(e: unknown): boolean {
   if (e instanceof ApiError) return false;
   if (typeof navigator !== 'undefined' && navigator.onLine === false) return true;
   return e instanceof TypeError || (e instanceof DOMException && (e.name === 'TimeoutError' || e.name === 'AbortError' || e.name === 'NetworkError'));
@@ -35,7 +35,11 @@ export function isNetworkFailure(e: unknown): boolean {
 
 function messageOf(e: unknown): string {
   if (e instanceof ApiError) {
-    const fields = e.body.fields ? Object.entries(e.body.fields).map(([k, v]) => `${k}: ${v.join(', ')}`).join('; ') : '';
+    const fields = e.body.fields
+      ? Object.entries(e.body.fields)
+          .map(([k, v]) => `${k}: ${v.join(', ')}`)
+          .join('; ')
+      : '';
     return fields ? `${e.body.message} (${fields})` : e.body.message;
   }
   return e instanceof Error ? e.message : 'Something went wrong.';
@@ -77,7 +81,11 @@ export async function evaluateOnPhone(input: EvaluateBody, data?: OfflineWizardD
 /** The wizard's evaluate: the server when it can be reached, else the phone. */
 export async function evaluateAnywhere(input: EvaluateBody): Promise<WizardResult> {
   try {
-    const result = await fetcher<WizardResult>('/api/wizard/evaluate', { method: 'POST', body: JSON.stringify(input), signal: AbortSignal.timeout(NETWORK_WAIT_MS) });
+    const result = await fetcher<WizardResult>('/api/wizard/evaluate', {
+      method: 'POST',
+      body: JSON.stringify(input),
+      signal: AbortSignal.timeout(NETWORK_WAIT_MS),
+    });
     markReachable();
     last = { body: JSON.stringify(input), result };
     return result;
@@ -92,7 +100,7 @@ export async function evaluateAnywhere(input: EvaluateBody): Promise<WizardResul
 }
 
 /** Where a queued save's panel points until the server has it. */
-export const WAITING_URL = '/answers#waiting-to-send';
+const WAITING_URL = '/answers#waiting-to-send';
 
 export function isWaiting(saved: { url: string } | null | undefined): boolean {
   return saved?.url === WAITING_URL;
@@ -120,13 +128,21 @@ export async function saveAnywhere(input: SaveRequest): Promise<{ id: string; ur
   const userId = currentMemberId();
   const queue = async () => {
     if (!userId) throw new Error('No connection, and this phone does not know who is signed in. Save again once you are back online.');
-    await enqueueSave({ key, userId, body, label: { speciesName: shown?.speciesName ?? input.body.species, headline: shown?.headline ?? '', date: input.body.date } });
+    await enqueueSave({
+      key,
+      userId,
+      body,
+      label: { speciesName: shown?.speciesName ?? input.body.species, headline: shown?.headline ?? '', date: input.body.date },
+    });
     return { id: key, url: WAITING_URL };
   };
   if (isOffline()) return queue();
   try {
     const r = await fetcher<{ id: string; url: string }>('/api/answers', {
-      method: 'POST', body: JSON.stringify(body), headers: { 'Idempotency-Key': key }, signal: AbortSignal.timeout(NETWORK_WAIT_MS * 2),
+      method: 'POST',
+      body: JSON.stringify(body),
+      headers: { 'Idempotency-Key': key },
+      signal: AbortSignal.timeout(NETWORK_WAIT_MS * 2),
     });
     markReachable();
     return { id: r.id, url: r.url };

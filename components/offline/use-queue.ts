@@ -11,7 +11,10 @@ export function useQueued(): QueuedSave[] | null {
     const load = () => {
       const userId = currentMemberId();
       if (!userId || typeof indexedDB === 'undefined') return setItems([]);
-      void listQueued(userId).then((l) => live && setItems(l), () => live && setItems([]));
+      void listQueued(userId).then(
+        (l) => live && setItems(l),
+        () => live && setItems([]),
+      );
     };
     load();
     // The member id is set by the layout's effect, which may run after this one.

@@ -34,24 +34,36 @@ export function WaitingAnswers({ heading = 'h2' }: { heading?: 'h2' | 'h3' }) {
       <ul className="mt-2 space-y-2">
         {items.map((e) => (
           <li key={e.key} className="rounded-lg bg-white p-2" data-testid="waiting-item">
-            <span className="block font-medium">{e.label.speciesName}, {e.label.date}</span>
+            <span className="block font-medium">
+              {e.label.speciesName}, {e.label.date}
+            </span>
             {e.label.headline && <span className="block text-stone-700">{e.label.headline}</span>}
             {e.refused ? (
               <span className="mt-1 block">
-                <span className="block text-clay-700" role="alert">Not accepted: {e.refused}</span>
+                <span className="block text-clay-700" role="alert">
+                  Not accepted: {e.refused}
+                </span>
                 <span className="mt-1 flex flex-wrap gap-2">
-                  <button type="button" className="btn-secondary" onClick={() => void retryQueued(e.key, e.userId)}>Try again</button>
-                  <button type="button" className="btn-secondary" onClick={() => void discardQueued(e.key, e.userId)}>Remove from this phone</button>
+                  <button type="button" className="btn-secondary" onClick={() => void retryQueued(e.key, e.userId)}>
+                    Try again
+                  </button>
+                  <button type="button" className="btn-secondary" onClick={() => void discardQueued(e.key, e.userId)}>
+                    Remove from this phone
+                  </button>
                 </span>
               </span>
             ) : (
-              <span className="block text-sm text-stone-700">Waiting to send{e.attempts > 0 ? ` (tried ${e.attempts} ${e.attempts === 1 ? 'time' : 'times'})` : ''}</span>
+              <span className="block text-sm text-stone-700">
+                Waiting to send{e.attempts > 0 ? ` (tried ${e.attempts} ${e.attempts === 1 ? 'time' : 'times'})` : ''}
+              </span>
             )}
           </li>
         ))}
       </ul>
       {online && waiting > 0 && (
-        <button type="button" className="btn-secondary mt-3" disabled={busy} onClick={() => void sendNow()}>{busy ? 'Sending…' : 'Send now'}</button>
+        <button type="button" className="btn-secondary mt-3" disabled={busy} onClick={() => void sendNow()}>
+          {busy ? 'Sending…' : 'Send now'}
+        </button>
       )}
     </section>
   );

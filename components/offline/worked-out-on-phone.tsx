@@ -7,8 +7,8 @@ export function WorkedOutOnPhone({ result }: { result: WizardResult }) {
   if (!isWorkedOutOnPhone(result)) return null;
   return (
     <p role="status" className="rounded-lg border-2 border-sun-500 bg-sun-100 p-3 text-stone-900" data-testid="worked-out-on-phone">
-      <strong>Worked out on this phone</strong> with no connection, using rules version {result.engineVersion} and species revision{' '}
-      {result.speciesRevision}. When you save, Candlewise works it out again and shows both if they differ.
+      <strong>Worked out on this phone</strong> with no connection, using rules version {result.engineVersion} and species revision {result.speciesRevision}.
+      When you save, Candlewise works it out again and shows both if they differ.
     </p>
   );
 }

@@ -85,9 +85,18 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
               <img src={p.thumbUrl} alt={`${label}, photo ${i + 1} of ${photos.length}`} className="aspect-square w-full object-cover" loading="lazy" />
             </a>
             <div className="flex items-center justify-between gap-2 px-2 py-1 text-xs text-stone-600">
-              <span>{p.createdAt.slice(0, 10)} · {p.width}×{p.height}</span>
+              <span>
+                {p.createdAt.slice(0, 10)} · {p.width}×{p.height}
+              </span>
               {p.mine ? (
-                <button type="button" className="min-h-target px-2 text-sm text-clay-700 underline disabled:no-underline disabled:opacity-60" disabled={!online} title={online ? undefined : 'Removing a photo needs a connection'} onClick={() => void remove(p)} aria-label={`Remove photo ${i + 1}`}>
+                <button
+                  type="button"
+                  className="min-h-target px-2 text-sm text-clay-700 underline disabled:no-underline disabled:opacity-60"
+                  disabled={!online}
+                  title={online ? undefined : 'Removing a photo needs a connection'}
+                  onClick={() => void remove(p)}
+                  aria-label={`Remove photo ${i + 1}`}
+                >
                   Remove
                 </button>
               ) : null}
@@ -113,18 +122,26 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
               data-testid="photo-input"
             />
           </label>
-          {!online && <p id={offlineId} className="text-sm font-medium text-stone-900" data-testid="photos-offline">Adding and removing photos needs a connection.</p>}
+          {!online && (
+            <p id={offlineId} className="text-sm font-medium text-stone-900" data-testid="photos-offline">
+              Adding and removing photos needs a connection.
+            </p>
+          )}
           <p className="text-sm text-stone-700">
-            JPEG, PNG or WebP, up to 10 MB each, {MAX_PER_ITEM} per item ({photos.length} used). Photos are re-encoded on
-            upload: this removes the location and camera details stored in the file, and large photos are scaled to
-            2560 px on the longest side.
+            JPEG, PNG or WebP, up to 10 MB each, {MAX_PER_ITEM} per item ({photos.length} used). Photos are re-encoded on upload: this removes the location and
+            camera details stored in the file, and large photos are scaled to 2560 px on the longest side.
           </p>
         </div>
       ) : null}
       {jobs.length > 0 ? (
         <ul className="space-y-2" aria-live="polite" data-testid="upload-jobs">
           {jobs.map((j) => (
-            <li key={j.key} className={`rounded-lg border p-2 text-sm ${j.status === 'failed' ? 'border-clay-500 bg-clay-100' : 'border-stone-200 bg-white'}`} data-testid="upload-job" data-status={j.status}>
+            <li
+              key={j.key}
+              className={`rounded-lg border p-2 text-sm ${j.status === 'failed' ? 'border-clay-500 bg-clay-100' : 'border-stone-200 bg-white'}`}
+              data-testid="upload-job"
+              data-status={j.status}
+            >
               <div className="flex flex-wrap justify-between gap-2">
                 <span className="break-all font-medium">{j.name}</span>
                 <span className="text-stone-600">{formatBytes(j.size)}</span>
@@ -133,12 +150,18 @@ export function PhotoPanel({ target, initial, canAdd, label }: { target: UploadT
                 <progress className="mt-1 h-2 w-full" max={1} value={j.progress} aria-label={`Uploading ${j.name}`} />
               ) : null}
               {j.status === 'done' ? <p className="text-moss-800">Uploaded.</p> : null}
-              {j.status === 'failed' ? <p className="text-clay-700" role="alert">Not uploaded: {j.message}</p> : null}
+              {j.status === 'failed' ? (
+                <p className="text-clay-700" role="alert">
+                  Not uploaded: {j.message}
+                </p>
+              ) : null}
             </li>
           ))}
         </ul>
       ) : null}
-      <p role="status" className="text-sm">{notice}</p>
+      <p role="status" className="text-sm">
+        {notice}
+      </p>
     </div>
   );
 }

@@ -20,7 +20,9 @@ export function ObservationButton({ treeId, body, label, testId }: { treeId: str
           start(async () => {
             setError(null);
             const res = await fetch(`/api/trees/${encodeURIComponent(treeId)}/observations`, {
-              method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body),
+              method: 'POST',
+              headers: { 'content-type': 'application/json' },
+              body: JSON.stringify(body),
             });
             if (!res.ok) setError('Could not save that. Try again.');
             else router.refresh();
@@ -29,7 +31,11 @@ export function ObservationButton({ treeId, body, label, testId }: { treeId: str
       >
         {pending ? 'Saving…' : label}
       </button>
-      {error ? <span role="alert" className="text-sm text-red-800">{error}</span> : null}
+      {error ? (
+        <span role="alert" className="text-sm text-red-800">
+          {error}
+        </span>
+      ) : null}
     </span>
   );
 }

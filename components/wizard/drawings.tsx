@@ -35,7 +35,26 @@ export function BranchingDrawing({ level }: { level: 'primary' | 'secondary' | '
         </g>
       )}
       <g className="text-moss-600">
-        {(level === 'primary' ? [[110, 40]] : level === 'secondary' ? [[110, 40], [50, 30], [88, 22], [70, 76]] : [[110, 40], [34, 30], [60, 24], [72, 20], [100, 18], [78, 66], [50, 30], [88, 22]]).map(([x, y], i) => (
+        {(level === 'primary'
+          ? [[110, 40]]
+          : level === 'secondary'
+            ? [
+                [110, 40],
+                [50, 30],
+                [88, 22],
+                [70, 76],
+              ]
+            : [
+                [110, 40],
+                [34, 30],
+                [60, 24],
+                [72, 20],
+                [100, 18],
+                [78, 66],
+                [50, 30],
+                [88, 22],
+              ]
+        ).map(([x, y], i) => (
           <circle key={i} cx={x} cy={y} r={level === 'tertiary' ? 5 : 6} fill="currentColor" opacity={0.7} />
         ))}
       </g>
@@ -87,7 +106,17 @@ export function PositionDrawing({ position }: { position: 'beyond-silhouette' | 
       <path d="M10 62 Q20 20 60 16 Q100 18 108 60 Z" fill="#e2ecdc" stroke="#548347" strokeWidth="2" strokeDasharray="5 4" />
       <line x1="30" y1="70" x2="60" y2="58" stroke="#74573f" strokeWidth="4" strokeLinecap="round" />
       <line x1="60" y1="58" x2={tip[0]} y2={tip[1]} stroke="#74573f" strokeWidth="3" strokeLinecap="round" />
-      <rect x={tip[0] - 4} y={tip[1] - 14} width="8" height="16" rx="4" fill="#c2d9a0" stroke="#33522c" strokeWidth="1.5" transform={`rotate(35 ${tip[0]} ${tip[1]})`} />
+      <rect
+        x={tip[0] - 4}
+        y={tip[1] - 14}
+        width="8"
+        height="16"
+        rx="4"
+        fill="#c2d9a0"
+        stroke="#33522c"
+        strokeWidth="1.5"
+        transform={`rotate(35 ${tip[0]} ${tip[1]})`}
+      />
     </svg>
   );
 }
@@ -121,7 +150,11 @@ function DecandleDrawing() {
   return (
     <Twig label="decandle">
       <line x1="60" y1="98" x2="60" y2="58" stroke="#74573f" strokeWidth="5" strokeLinecap="round" />
-      <g className="text-moss-700">{[92, 84, 76, 68].map((y) => <Needles key={y} x={60} y={y} len={16} spread={1.1} />)}</g>
+      <g className="text-moss-700">
+        {[92, 84, 76, 68].map((y) => (
+          <Needles key={y} x={60} y={y} len={16} spread={1.1} />
+        ))}
+      </g>
       <rect x="55" y="12" width="10" height="44" rx="5" fill="#c2d9a0" stroke="#548347" strokeWidth="1.5" opacity="0.5" strokeDasharray="4 3" />
       {/* the cut, at the base of the candle */}
       <line x1="42" y1="58" x2="78" y2="58" stroke="#8a3b1f" strokeWidth="3" strokeDasharray="5 3" />
@@ -134,7 +167,11 @@ function PinchDrawing() {
   return (
     <Twig label="pinch">
       <line x1="60" y1="98" x2="60" y2="62" stroke="#74573f" strokeWidth="5" strokeLinecap="round" />
-      <g className="text-moss-700">{[92, 84, 76, 68].map((y) => <Needles key={y} x={60} y={y} len={16} spread={1.1} />)}</g>
+      <g className="text-moss-700">
+        {[92, 84, 76, 68].map((y) => (
+          <Needles key={y} x={60} y={y} len={16} spread={1.1} />
+        ))}
+      </g>
       <rect x="55" y="34" width="10" height="28" rx="5" fill="#c2d9a0" stroke="#548347" strokeWidth="1.5" />
       <rect x="55" y="10" width="10" height="22" rx="5" fill="#c2d9a0" stroke="#548347" strokeWidth="1.5" opacity="0.45" strokeDasharray="4 3" />
       {/* finger and thumb at the break */}
@@ -148,8 +185,18 @@ function BackBudDrawing() {
   return (
     <Twig label="back-bud">
       <line x1="10" y1="80" x2="110" y2="40" stroke="#74573f" strokeWidth="5" strokeLinecap="round" />
-      <g className="text-moss-600">{[[100, 44], [108, 41]].map(([x, y]) => <Needles key={x} x={x} y={y} len={14} />)}</g>
-      {[[40, 68], [60, 60]].map(([x, y]) => (
+      <g className="text-moss-600">
+        {[
+          [100, 44],
+          [108, 41],
+        ].map(([x, y]) => (
+          <Needles key={x} x={x} y={y} len={14} />
+        ))}
+      </g>
+      {[
+        [40, 68],
+        [60, 60],
+      ].map(([x, y]) => (
         <g key={x}>
           <ellipse cx={x} cy={y - 8} rx="4" ry="7" fill="#a98766" />
           <circle cx={x} cy={y - 8} r="12" fill="none" stroke="#33522c" strokeWidth="1.5" strokeDasharray="3 3" />
@@ -164,7 +211,18 @@ function FlushDrawing() {
     <Twig label="flush">
       <line x1="60" y1="98" x2="60" y2="50" stroke="#74573f" strokeWidth="5" strokeLinecap="round" />
       {[30, 60, 90].map((x, i) => (
-        <rect key={x} x={x - 5} y={14 + i * 4} width="10" height="38" rx="5" fill="#c2d9a0" stroke="#548347" strokeWidth="1.5" transform={`rotate(${(x - 60) / 2} 60 54)`} />
+        <rect
+          key={x}
+          x={x - 5}
+          y={14 + i * 4}
+          width="10"
+          height="38"
+          rx="5"
+          fill="#c2d9a0"
+          stroke="#548347"
+          strokeWidth="1.5"
+          transform={`rotate(${(x - 60) / 2} 60 54)`}
+        />
       ))}
     </Twig>
   );
@@ -182,22 +240,36 @@ function PadDrawing() {
 /** A drawing for a trade term, or null when words alone say it best. */
 export function TermDrawing({ term }: { term: string }) {
   switch (term) {
-    case 'candle': return <ShootDrawing state="candle-extending" />;
-    case 'hardened': return <ShootDrawing state="needles-hardened" />;
-    case 'decandle': return <DecandleDrawing />;
-    case 'pinch': return <PinchDrawing />;
-    case 'needle bundle': return <NeedleBundleDrawing count={3} />;
-    case 'needle pair': return <NeedleBundleDrawing count={2} />;
-    case 'silhouette': return <PositionDrawing position="beyond-silhouette" />;
-    case 'interior shoot': return <PositionDrawing position="interior" />;
+    case 'candle':
+      return <ShootDrawing state="candle-extending" />;
+    case 'hardened':
+      return <ShootDrawing state="needles-hardened" />;
+    case 'decandle':
+      return <DecandleDrawing />;
+    case 'pinch':
+      return <PinchDrawing />;
+    case 'needle bundle':
+      return <NeedleBundleDrawing count={3} />;
+    case 'needle pair':
+      return <NeedleBundleDrawing count={2} />;
+    case 'silhouette':
+      return <PositionDrawing position="beyond-silhouette" />;
+    case 'interior shoot':
+      return <PositionDrawing position="interior" />;
     case 'refinement':
-    case 'ramification': return <BranchingDrawing level="tertiary" />;
-    case 'development': return <BranchingDrawing level="primary" />;
+    case 'ramification':
+      return <BranchingDrawing level="tertiary" />;
+    case 'development':
+      return <BranchingDrawing level="primary" />;
     case 'back bud':
-    case 'lateral bud': return <BackBudDrawing />;
+    case 'lateral bud':
+      return <BackBudDrawing />;
     case 'flush':
-    case 'whorl': return <FlushDrawing />;
-    case 'pad': return <PadDrawing />;
-    default: return null;
+    case 'whorl':
+      return <FlushDrawing />;
+    case 'pad':
+      return <PadDrawing />;
+    default:
+      return null;
   }
 }

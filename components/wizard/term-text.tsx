@@ -7,7 +7,11 @@ import { TermDrawing } from './drawings';
 /** What a term means, with our drawing of it. */
 export function TermExplanation({ term, onClose, id }: { term: Term; onClose?: () => void; id?: string }) {
   return (
-    <span id={id} className="mt-2 flex items-start gap-3 rounded-lg border border-stone-300 bg-white p-3 font-sans text-base font-normal normal-case leading-normal tracking-normal text-stone-900" data-testid="term-explanation">
+    <span
+      id={id}
+      className="mt-2 flex items-start gap-3 rounded-lg border border-stone-300 bg-white p-3 font-sans text-base font-normal normal-case leading-normal tracking-normal text-stone-900"
+      data-testid="term-explanation"
+    >
       <TermDrawing term={term.term} />
       <span className="min-w-0 flex-1">
         <strong className="block capitalize">{term.term}</strong>
@@ -30,7 +34,12 @@ export function TermText({ text, terms, as: Tag = 'span' }: { text: string; term
   const [open, setOpen] = useState<string | null>(null);
   const base = useId();
   const list = terms ?? [];
-  const parts = list.length ? splitTerms(text, list.map((t) => t.term)) : [{ text }];
+  const parts = list.length
+    ? splitTerms(
+        text,
+        list.map((t) => t.term),
+      )
+    : [{ text }];
   const shown = list.find((t) => t.term === open);
   const panelId = `${base}-term`;
   return (

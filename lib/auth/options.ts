@@ -16,9 +16,20 @@ import { sendSignInLink } from '@/lib/mail/templates';
 import { safeCallbackPath } from '@/lib/http/safe-redirect';
 
 const adapterMethods = [
-  'createUser', 'getUser', 'getUserByEmail', 'getUserByAccount', 'updateUser', 'deleteUser', 'linkAccount',
-  'unlinkAccount', 'createSession', 'getSessionAndUser', 'updateSession', 'deleteSession',
-  'createVerificationToken', 'useVerificationToken',
+  'createUser',
+  'getUser',
+  'getUserByEmail',
+  'getUserByAccount',
+  'updateUser',
+  'deleteUser',
+  'linkAccount',
+  'unlinkAccount',
+  'createSession',
+  'getSessionAndUser',
+  'updateSession',
+  'deleteSession',
+  'createVerificationToken',
+  'useVerificationToken',
 ] as const;
 
 /** The database opens lazily (never during `next build`), so the adapter is built on first use. */
@@ -26,7 +37,13 @@ function lazyAdapter(): Adapter {
   let inner: Promise<Record<string, (...a: unknown[]) => unknown>> | undefined;
   const load = () =>
     (inner ??= getDb().then(
-      (db) => DrizzleAdapter(db, { usersTable: users, accountsTable: accounts, sessionsTable: sessions, verificationTokensTable: verificationTokens } as never) as never,
+      (db) =>
+        DrizzleAdapter(db, {
+          usersTable: users,
+          accountsTable: accounts,
+          sessionsTable: sessions,
+          verificationTokensTable: verificationTokens,
+        } as never) as never,
     ));
   return Object.fromEntries(
     adapterMethods.map((m) => [
@@ -50,7 +67,7 @@ function queueSignInLink(identifier: string, url: string) {
   });
 }
 
-export const SESSION_MAX_AGE = 30 * 24 * 60 * 60;
+const SESSION_MAX_AGE = 30 * 24 * 60 * 60;
 export const EMAIL_LINK_MAX_AGE = 15 * 60;
 
 export const authOptions: AuthOptions = {

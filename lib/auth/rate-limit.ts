@@ -5,7 +5,7 @@ import { PEER_HEADER, trustProxy } from '@/lib/http/client-address';
 // directory, so there is no second instance to share counts with.
 const WINDOW_MS = 60_000;
 export const MAX_FAILURES_PER_EMAIL = 10;
-export const MAX_FAILURES_PER_IP = 100;
+const MAX_FAILURES_PER_IP = 100;
 
 const g = globalThis as unknown as { __cwFailures?: Map<string, number[]> };
 const failures: Map<string, number[]> = (g.__cwFailures ??= new Map());
@@ -50,8 +50,7 @@ export function takeToken(key: string, max: number, windowMs: number, now = Date
  * believed only behind a proxy the operator configured.
  */
 export function clientIp(headers: Headers | Record<string, unknown> | undefined): string {
-  const get = (k: string) =>
-    headers instanceof Headers ? headers.get(k) : ((headers?.[k] as string | undefined) ?? null);
+  const get = (k: string) => (headers instanceof Headers ? headers.get(k) : ((headers?.[k] as string | undefined) ?? null));
   if (trustProxy()) {
     const forwarded = get('x-forwarded-for')?.split(',')[0]?.trim();
     if (forwarded) return forwarded;

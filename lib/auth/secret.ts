@@ -15,7 +15,7 @@ import { env } from '@/lib/env';
 // - Sessions and unsubscribe links get their own keys (HKDF-SHA256 with distinct labels), so a
 //   key recovered from one cannot sign the other.
 
-export const MIN_SECRET_BYTES = 32;
+const MIN_SECRET_BYTES = 32;
 
 // SHA-256 of secrets that were once written in this repository (development, test and benchmark
 // values). Anyone can read them, so they are refused even when configured on purpose.
@@ -26,10 +26,10 @@ const PUBLISHED_SECRET_HASHES = new Set([
   '4498665a5b47faad69b142ece379e6538c4032371e05bbe806838f19d6130211',
 ]);
 
-export class SecretConfigError extends Error {}
+class SecretConfigError extends Error {}
 
 /** Why a configured secret cannot be used, or null when it can. */
-export function secretProblem(secret: string, production: boolean): string | null {
+function secretProblem(secret: string, production: boolean): string | null {
   if (PUBLISHED_SECRET_HASHES.has(createHash('sha256').update(secret).digest('hex'))) {
     return 'NEXTAUTH_SECRET is a value published in the Candlewise source; generate your own (for example `openssl rand -base64 32`).';
   }
@@ -42,7 +42,7 @@ export function secretProblem(secret: string, production: boolean): string | nul
 }
 
 /** Read the stored secret, or create it (exclusively, mode 0600) on first start. */
-export function loadOrCreateSecretFile(file: string): string {
+function loadOrCreateSecretFile(file: string): string {
   try {
     return readSecretFile(file);
   } catch (e) {

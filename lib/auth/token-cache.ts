@@ -24,18 +24,13 @@ export interface Account {
 // and its write would not reach this cache; there the cache keeps nothing (every request reads
 // the account once) until a cross-process signal is wired to invalidate(): LISTEN/NOTIFY on a
 // channel that the writers above notify, whose listener calls invalidate(id) and then
-// shareInvalidation(true). Nothing else in the app needs to change for that.
+// sets `__cwAccountShared`. Nothing else in the app needs to change for that.
 
 // Keyed by account id, then by database handle (tests open several in-memory databases in one
 // process and must never see each other's rows).
 type Entry = { value: Promise<Account | null> };
 const g = globalThis as unknown as { __cwAccountCache?: Map<string, WeakMap<object, Entry>>; __cwAccountShared?: boolean };
 const byId = (g.__cwAccountCache ??= new Map());
-
-/** Called by a cross-process invalidation source once it delivers every write (see above). */
-export function shareInvalidation(on: boolean) {
-  g.__cwAccountShared = on;
-}
 
 /** The account for a session, from memory when this process can know it is current. */
 export function cachedAccount(

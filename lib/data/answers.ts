@@ -20,7 +20,7 @@ import { answerRowFromResult } from './answer-row';
 type Viewer = Pick<SessionUser, 'id'> | null;
 
 // The generator and the pattern live in lib/ids.ts with every other id's; re-exported here.
-export { answerIdPattern, newAnswerId } from '@/lib/ids';
+export { newAnswerId } from '@/lib/ids';
 
 export interface AnswerDto {
   id: string;
@@ -91,7 +91,11 @@ export async function saveAnswerOnce(
     if (first) return { created: false, answer: first };
   }
   if (treeId) {
-    const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, treeId), eq(trees.ownerId, user.id))).limit(1);
+    const [tree] = await db
+      .select({ id: trees.id })
+      .from(trees)
+      .where(and(eq(trees.id, treeId), eq(trees.ownerId, user.id)))
+      .limit(1);
     if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
   }
   await assertAnswerQuota(user.id);
@@ -130,7 +134,11 @@ export async function saveAnswer(user: SessionUser, body: SaveAnswerWithPhoneBod
 /** The phone's answer differs when it would have the member do something else, or for other reasons. */
 export function phoneDiffers(phone: PhoneResult, server: WizardResult): boolean {
   if (phone.action !== server.action || phone.engineVersion !== server.engineVersion || phone.speciesRevision !== server.speciesRevision) return true;
-  const rules = (rs: { rule: string }[]) => rs.map((r) => r.rule).sort().join(' ');
+  const rules = (rs: { rule: string }[]) =>
+    rs
+      .map((r) => r.rule)
+      .sort()
+      .join(' ');
   return rules(phone.reasons) !== rules(server.reasons);
 }
 
@@ -190,9 +198,17 @@ async function listAnswers(
   const db = await getDb();
   const rows = await db
     .select({
-      id: answers.id, speciesSlug: answers.speciesSlug, action: answers.action, stage: answers.stage, season: answers.season,
-      observedOn: answers.observedOn, note: answers.note, followUp: answers.followUp,
-      visibility: answers.visibility, createdAt: answers.createdAt, askerName: users.name,
+      id: answers.id,
+      speciesSlug: answers.speciesSlug,
+      action: answers.action,
+      stage: answers.stage,
+      season: answers.season,
+      observedOn: answers.observedOn,
+      note: answers.note,
+      followUp: answers.followUp,
+      visibility: answers.visibility,
+      createdAt: answers.createdAt,
+      askerName: users.name,
       // Two fields of the stored result, not the whole document: a list page read and parsed
       // every answer's full result only to show these (the signed-in benchmark found it).
       speciesName: sql<string | null>`${answers.result}->>'speciesName'`,
@@ -209,9 +225,20 @@ async function listAnswers(
   const page = rows.slice(0, limit);
   const items = page.map((r) => {
     return {
-      id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: r.speciesName ?? r.speciesSlug,
-      action: r.action as Action, stage: r.stage, season: r.season, observedOn: r.observedOn, headline: r.headline ?? r.action,
-      note: r.note, followUp: r.followUp, visibility: r.visibility, createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName),
+      id: r.id,
+      url: answerUrl(r.id),
+      speciesSlug: r.speciesSlug,
+      speciesName: r.speciesName ?? r.speciesSlug,
+      action: r.action as Action,
+      stage: r.stage,
+      season: r.season,
+      observedOn: r.observedOn,
+      headline: r.headline ?? r.action,
+      note: r.note,
+      followUp: r.followUp,
+      visibility: r.visibility,
+      createdAt: r.createdAt.toISOString(),
+      askerName: asker(r.askerName),
     };
   });
   const last = page[page.length - 1];
@@ -224,11 +251,24 @@ export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto |
   const db = await getDb();
   const [r] = await db
     .select({
-      id: answers.id, userId: answers.userId, treeId: answers.treeId, speciesSlug: answers.speciesSlug,
-      speciesRevision: answers.speciesRevision, engineVersion: answers.engineVersion, action: answers.action,
-      stage: answers.stage, season: answers.season, observedOn: answers.observedOn, input: answers.input,
-      result: answers.result, note: answers.note, followUp: answers.followUp, visibility: answers.visibility,
-      createdAt: answers.createdAt, askerName: users.name, phoneResult: answers.phoneResult,
+      id: answers.id,
+      userId: answers.userId,
+      treeId: answers.treeId,
+      speciesSlug: answers.speciesSlug,
+      speciesRevision: answers.speciesRevision,
+      engineVersion: answers.engineVersion,
+      action: answers.action,
+      stage: answers.stage,
+      season: answers.season,
+      observedOn: answers.observedOn,
+      input: answers.input,
+      result: answers.result,
+      note: answers.note,
+      followUp: answers.followUp,
+      visibility: answers.visibility,
+      createdAt: answers.createdAt,
+      askerName: users.name,
+      phoneResult: answers.phoneResult,
     })
     .from(answers)
     .innerJoin(users, eq(users.id, answers.userId))
@@ -237,11 +277,25 @@ export async function getAnswer(id: string, viewer: Viewer): Promise<AnswerDto |
   if (!r) return null;
   const result = r.result;
   return {
-    id: r.id, url: answerUrl(r.id), speciesSlug: r.speciesSlug, speciesName: result.speciesName ?? r.speciesSlug,
-    speciesRevision: r.speciesRevision, engineVersion: r.engineVersion, action: r.action as Action, stage: r.stage,
-    season: r.season, observedOn: r.observedOn, treeId: r.userId === viewer.id ? r.treeId : null,
-    input: r.input, result, note: r.note, followUp: r.followUp, visibility: r.visibility,
-    createdAt: r.createdAt.toISOString(), askerName: asker(r.askerName), isOwner: r.userId === viewer.id,
+    id: r.id,
+    url: answerUrl(r.id),
+    speciesSlug: r.speciesSlug,
+    speciesName: result.speciesName ?? r.speciesSlug,
+    speciesRevision: r.speciesRevision,
+    engineVersion: r.engineVersion,
+    action: r.action as Action,
+    stage: r.stage,
+    season: r.season,
+    observedOn: r.observedOn,
+    treeId: r.userId === viewer.id ? r.treeId : null,
+    input: r.input,
+    result,
+    note: r.note,
+    followUp: r.followUp,
+    visibility: r.visibility,
+    createdAt: r.createdAt.toISOString(),
+    askerName: asker(r.askerName),
+    isOwner: r.userId === viewer.id,
     phoneResult: r.phoneResult ?? null,
   };
 }
@@ -255,13 +309,25 @@ export async function updateAnswer(
   const db = await getDb();
   // Only your own answer, and only to your own tree: someone else's tree reads like a missing one.
   if (patch.treeId && answerIdPattern.test(id)) {
-    const [own] = await db.select({ id: answers.id }).from(answers).where(and(eq(answers.id, id), eq(answers.userId, user.id))).limit(1);
+    const [own] = await db
+      .select({ id: answers.id })
+      .from(answers)
+      .where(and(eq(answers.id, id), eq(answers.userId, user.id)))
+      .limit(1);
     if (!own) await refuse(id, user);
-    const [tree] = await db.select({ id: trees.id }).from(trees).where(and(eq(trees.id, patch.treeId), eq(trees.ownerId, user.id))).limit(1);
+    const [tree] = await db
+      .select({ id: trees.id })
+      .from(trees)
+      .where(and(eq(trees.id, patch.treeId), eq(trees.ownerId, user.id)))
+      .limit(1);
     if (!tree) throw new AppError('bad_request:treeId', 'That tree is not one of yours.', { treeId: ['Unknown tree'] });
   }
   const rows = answerIdPattern.test(id)
-    ? await db.update(answers).set(patch).where(and(eq(answers.id, id), eq(answers.userId, user.id))).returning({ id: answers.id })
+    ? await db
+        .update(answers)
+        .set(patch)
+        .where(and(eq(answers.id, id), eq(answers.userId, user.id)))
+        .returning({ id: answers.id })
     : [];
   if (!rows.length) await refuse(id, user);
   return (await getAnswer(id, user))!;
@@ -272,7 +338,10 @@ export async function deleteAnswer(user: Pick<SessionUser, 'id'>, id: string): P
   // The photo rows go with the answer (cascade); their files are read first and removed after.
   const files = answerIdPattern.test(id) ? await photoFilesOfAnswer(user, id) : [];
   const rows = answerIdPattern.test(id)
-    ? await db.delete(answers).where(and(eq(answers.id, id), eq(answers.userId, user.id))).returning({ id: answers.id })
+    ? await db
+        .delete(answers)
+        .where(and(eq(answers.id, id), eq(answers.userId, user.id)))
+        .returning({ id: answers.id })
     : [];
   if (!rows.length) await refuse(id, user);
   await removeStoredFiles(files);
@@ -322,8 +391,12 @@ export async function getAnswerPreview(id: string, viewer: Viewer): Promise<Answ
   const db = await getDb();
   const [r] = await db
     .select({
-      id: answers.id, action: answers.action, speciesSlug: answers.speciesSlug, observedOn: answers.observedOn,
-      speciesName: sql<string | null>`${answers.result} ->> 'speciesName'`, askerName: users.name,
+      id: answers.id,
+      action: answers.action,
+      speciesSlug: answers.speciesSlug,
+      observedOn: answers.observedOn,
+      speciesName: sql<string | null>`${answers.result} ->> 'speciesName'`,
+      askerName: users.name,
     })
     .from(answers)
     .innerJoin(users, eq(users.id, answers.userId))
@@ -331,7 +404,11 @@ export async function getAnswerPreview(id: string, viewer: Viewer): Promise<Answ
     .limit(1);
   if (!r) return null;
   return {
-    id: r.id, action: r.action as Action, speciesSlug: r.speciesSlug, speciesName: r.speciesName ?? r.speciesSlug,
-    observedOn: r.observedOn, askerName: asker(r.askerName),
+    id: r.id,
+    action: r.action as Action,
+    speciesSlug: r.speciesSlug,
+    speciesName: r.speciesName ?? r.speciesSlug,
+    observedOn: r.observedOn,
+    askerName: asker(r.askerName),
   };
 }

@@ -27,7 +27,7 @@ export interface DigestSendDto {
 }
 
 /** A second send of the same note needs `{ confirm: true }`; the 409 says when it last went out. */
-export class DigestAlreadySentError extends AppError {
+class DigestAlreadySentError extends AppError {
   constructor(readonly previous: DigestSendDto) {
     super('conflict:digest_already_sent', `This note was already sent on ${previous.sentAt.slice(0, 10)} to ${previous.recipients} members. Send it again?`);
   }
@@ -119,9 +119,16 @@ export async function sendNoteDigest(
       .orderBy(desc(digestSends.sentAt), desc(digestSends.id))
       .limit(1);
     if (prev && opts.confirm !== true) {
-      throw new DigestAlreadySentError({ sentAt: prev.sentAt.toISOString(), recipients: prev.recipients, senderName: prev.senderName?.trim() || 'A former member' });
+      throw new DigestAlreadySentError({
+        sentAt: prev.sentAt.toISOString(),
+        recipients: prev.recipients,
+        senderName: prev.senderName?.trim() || 'A former member',
+      });
     }
-    const [row] = await tx.insert(digestSends).values({ noteId: note.id, senderId: actor.id, recipients: recipients.length }).returning({ id: digestSends.id, sentAt: digestSends.sentAt });
+    const [row] = await tx
+      .insert(digestSends)
+      .values({ noteId: note.id, senderId: actor.id, recipients: recipients.length })
+      .returning({ id: digestSends.id, sentAt: digestSends.sentAt });
     // One job per member, committed with the send: the server's queue delivers them.
     for (const r of recipients) {
       await enqueue(DIGEST_MEMBER_QUEUE, { sendId: row.id, userId: r.id }, { dedupeKey: `digest:${row.id}:${r.id}` }, tx);
@@ -151,7 +158,16 @@ export async function handleDigestMemberJob(job: Job) {
   const userId = String(job.payload.userId);
   const db = await getDb();
   const [row] = await db
-    .select({ slug: notes.slug, id: users.id, name: users.name, email: users.email, role: users.role, tokenVersion: users.tokenVersion, digestOptIn: users.digestOptIn, disabled: users.disabled })
+    .select({
+      slug: notes.slug,
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      role: users.role,
+      tokenVersion: users.tokenVersion,
+      digestOptIn: users.digestOptIn,
+      disabled: users.disabled,
+    })
     .from(digestSends)
     .innerJoin(notes, eq(notes.id, digestSends.noteId))
     .innerJoin(users, eq(users.id, userId))

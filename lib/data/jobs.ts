@@ -58,10 +58,9 @@ export async function claimJob(queues: string[], leaseMs: number): Promise<Job |
     const [due] = await tx
       .select({ id: jobs.id })
       .from(jobs)
-      .where(and(
-        inArray(jobs.queue, queues),
-        or(and(eq(jobs.state, 'queued'), lte(jobs.runAt, now)), and(eq(jobs.state, 'active'), lt(jobs.lockedUntil, now))),
-      ))
+      .where(
+        and(inArray(jobs.queue, queues), or(and(eq(jobs.state, 'queued'), lte(jobs.runAt, now)), and(eq(jobs.state, 'active'), lt(jobs.lockedUntil, now)))),
+      )
       .orderBy(jobs.runAt, jobs.id)
       .limit(1)
       .for('update', { skipLocked: true });
@@ -73,12 +72,6 @@ export async function claimJob(queues: string[], leaseMs: number): Promise<Job |
       .returning({ id: jobs.id, queue: jobs.queue, payload: jobs.payload, attempts: jobs.attempts, maxAttempts: jobs.maxAttempts });
     return job;
   });
-}
-
-/** Keep holding a long job. */
-export async function extendLease(id: number, leaseMs: number) {
-  const db = await getDb();
-  await db.update(jobs).set({ lockedUntil: new Date(Date.now() + leaseMs) }).where(and(eq(jobs.id, id), eq(jobs.state, 'active')));
 }
 
 export async function completeJob(id: number) {
@@ -97,9 +90,11 @@ export async function failJob(job: Pick<Job, 'id' | 'attempts' | 'maxAttempts'>,
   const last = job.attempts >= job.maxAttempts;
   await db
     .update(jobs)
-    .set(last
-      ? { state: 'failed', lockedUntil: null, lastError: error.slice(0, 500), finishedAt: new Date() }
-      : { state: 'queued', lockedUntil: null, lastError: error.slice(0, 500), runAt: new Date(Date.now() + backoffMs(job.attempts, baseMs)) })
+    .set(
+      last
+        ? { state: 'failed', lockedUntil: null, lastError: error.slice(0, 500), finishedAt: new Date() }
+        : { state: 'queued', lockedUntil: null, lastError: error.slice(0, 500), runAt: new Date(Date.now() + backoffMs(job.attempts, baseMs)) },
+    )
     .where(eq(jobs.id, job.id));
   return last ? 'failed' : 'retry';
 }
@@ -116,7 +111,11 @@ export async function releaseOrphanedJobs(): Promise<number> {
 
 export async function jobState(id: number) {
   const db = await getDb();
-  const [row] = await db.select({ state: jobs.state, attempts: jobs.attempts, lastError: jobs.lastError, runAt: jobs.runAt }).from(jobs).where(eq(jobs.id, id)).limit(1);
+  const [row] = await db
+    .select({ state: jobs.state, attempts: jobs.attempts, lastError: jobs.lastError, runAt: jobs.runAt })
+    .from(jobs)
+    .where(eq(jobs.id, id))
+    .limit(1);
   return row ?? null;
 }
 

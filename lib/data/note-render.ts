@@ -17,11 +17,11 @@ export const UNKNOWN_SPECIES = '(species not in the knowledge base)';
 
 const actionWords: Record<string, string> = { pinch: 'Pinch', prune: 'Prune', 'let-grow': 'Let grow', decandle: 'Decandle', wait: 'Wait' };
 
-export function answerCardMeta(p: AnswerPreview): string {
+function answerCardMeta(p: AnswerPreview): string {
   return `${actionWords[p.action] ?? p.action} · ${p.speciesName} · ${formatMeetingDate(p.observedOn)} · asked by ${p.askerName}`;
 }
 
-export function speciesCardMeta(s: { commonName: string; botanicalName: string; flushHabit: 'single' | 'double' | 'polycyclic' }): string {
+function speciesCardMeta(s: { commonName: string; botanicalName: string; flushHabit: 'single' | 'double' | 'polycyclic' }): string {
   const flush = { single: 'single flush', double: 'double flush', polycyclic: 'several flushes a season' }[s.flushHabit];
   return `${s.commonName} (${s.botanicalName}) · ${flush}`;
 }

@@ -56,7 +56,15 @@ const summaryColumns = {
   publishedAt: notes.publishedAt,
 };
 
-type SummaryRow = { slug: string; title: string; meetingDate: string; status: NoteStatus; authorName: string | null; updatedAt: Date; publishedAt: Date | null };
+type SummaryRow = {
+  slug: string;
+  title: string;
+  meetingDate: string;
+  status: NoteStatus;
+  authorName: string | null;
+  updatedAt: Date;
+  publishedAt: Date | null;
+};
 
 const toSummary = (r: SummaryRow): NoteSummaryDto => ({
   slug: r.slug,
@@ -187,13 +195,15 @@ export async function deleteNote(actor: SessionUser, slug: string): Promise<void
 /** Published notes that link an answer (by id) or a species (by slug), latest meeting first. */
 export async function getBacklinks(type: 'answer' | 'species', id: string): Promise<BacklinkDto[]> {
   const db = await getDb();
-  return db
-    .select({ slug: notes.slug, title: notes.title, meetingDate: notes.meetingDate })
-    .from(noteLinks)
-    .innerJoin(notes, eq(notes.id, noteLinks.noteId))
-    // By note_links_backlinks_idx: the newest hundred links in index order, then each note by its
-    // key (the copies on note_links are kept in step with the note; its own status is checked too).
-    .where(and(eq(noteLinks.targetType, type), eq(noteLinks.targetId, id), eq(noteLinks.published, true), eq(notes.status, 'published')))
-    .orderBy(sql`${noteLinks.meetingDate} desc nulls last`, sql`${noteLinks.noteId} desc nulls last`)
-    .limit(100);
+  return (
+    db
+      .select({ slug: notes.slug, title: notes.title, meetingDate: notes.meetingDate })
+      .from(noteLinks)
+      .innerJoin(notes, eq(notes.id, noteLinks.noteId))
+      // By note_links_backlinks_idx: the newest hundred links in index order, then each note by its
+      // key (the copies on note_links are kept in step with the note; its own status is checked too).
+      .where(and(eq(noteLinks.targetType, type), eq(noteLinks.targetId, id), eq(noteLinks.published, true), eq(notes.status, 'published')))
+      .orderBy(sql`${noteLinks.meetingDate} desc nulls last`, sql`${noteLinks.noteId} desc nulls last`)
+      .limit(100)
+  );
 }

@@ -96,7 +96,9 @@ export async function assertCanAddPhoto(actor: SessionUser, target: PhotoTarget)
 }
 
 const limitReached = () =>
-  new AppError('conflict:photo_limit', `Up to ${MAX_PHOTOS_PER_ITEM} photos per tree or answer: remove one first.`, { file: [`Already ${MAX_PHOTOS_PER_ITEM} photos here.`] });
+  new AppError('conflict:photo_limit', `Up to ${MAX_PHOTOS_PER_ITEM} photos per tree or answer: remove one first.`, {
+    file: [`Already ${MAX_PHOTOS_PER_ITEM} photos here.`],
+  });
 
 /** Stores a checked, re-encoded photo and its thumbnail; the row and the files appear together or not at all. */
 export async function addPhoto(actor: SessionUser, target: PhotoTarget, photo: ProcessedPhoto): Promise<PhotoDto> {
@@ -111,9 +113,17 @@ export async function addPhoto(actor: SessionUser, target: PhotoTarget, photo: P
     const row = await db.transaction(async (tx) => {
       // Lock the item so two uploads at once cannot both take the sixth place.
       if ('treeId' in target) {
-        await tx.select({ id: trees.id }).from(trees).where(and(eq(trees.id, target.treeId), eq(trees.ownerId, actor.id))).for('update');
+        await tx
+          .select({ id: trees.id })
+          .from(trees)
+          .where(and(eq(trees.id, target.treeId), eq(trees.ownerId, actor.id)))
+          .for('update');
       } else {
-        await tx.select({ id: answers.id }).from(answers).where(and(eq(answers.id, target.answerId), eq(answers.userId, actor.id))).for('update');
+        await tx
+          .select({ id: answers.id })
+          .from(answers)
+          .where(and(eq(answers.id, target.answerId), eq(answers.userId, actor.id)))
+          .for('update');
       }
       const [{ n }] = await tx.select({ n: count() }).from(photos).where(targetWhere(target));
       if (n >= MAX_PHOTOS_PER_ITEM) throw limitReached();
@@ -162,11 +172,7 @@ export async function readPhoto(viewer: SessionUser, id: string, size: 'full' | 
 
 export async function deletePhoto(actor: SessionUser, id: string): Promise<void> {
   const db = await getDb();
-  const [p] = await db
-    .select({ ownerId: photos.ownerId, treeId: photos.treeId, answerId: photos.answerId })
-    .from(photos)
-    .where(eq(photos.id, id))
-    .limit(1);
+  const [p] = await db.select({ ownerId: photos.ownerId, treeId: photos.treeId, answerId: photos.answerId }).from(photos).where(eq(photos.id, id)).limit(1);
   if (!p) throw notFound();
   const target: PhotoTarget | null = p.treeId ? { treeId: p.treeId } : p.answerId ? { answerId: p.answerId } : null;
   if (!target || !(await accessTo(actor, target))) throw notFound();

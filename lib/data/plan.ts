@@ -19,7 +19,8 @@ import { todayIso } from '@/lib/validation/trees';
 
 async function latestAnswerOf(ownerId: string, treeId: string) {
   const db = await getDb();
-  const [row] = await db.select({ stage: answers.stage, input: answers.input })
+  const [row] = await db
+    .select({ stage: answers.stage, input: answers.input })
     .from(answers)
     .where(and(eq(answers.treeId, treeId), eq(answers.userId, ownerId)))
     .orderBy(desc(answers.observedOn), desc(answers.createdAt))
@@ -39,9 +40,10 @@ async function planTreeFacts(tree: TreeDto, ownerId: string, today: string): Pro
     recentlyCollected: isRecentlyCollected(tree, today),
     backBuds: typeof input.backBuds === 'boolean' ? input.backBuds : undefined,
     repottedThisYear: typeof input.repottedThisYear === 'boolean' && (input.date ?? '').slice(0, 4) === today.slice(0, 4) ? input.repottedThisYear : undefined,
-    container: tree.containerShape && tree.containerLengthCm
-      ? { shape: tree.containerShape, lengthCm: tree.containerLengthCm, ...(tree.containerWidthCm ? { widthCm: tree.containerWidthCm } : {}) }
-      : undefined,
+    container:
+      tree.containerShape && tree.containerLengthCm
+        ? { shape: tree.containerShape, lengthCm: tree.containerLengthCm, ...(tree.containerWidthCm ? { widthCm: tree.containerWidthCm } : {}) }
+        : undefined,
   };
 }
 

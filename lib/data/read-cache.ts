@@ -14,7 +14,7 @@ const g = globalThis as unknown as {
 const byDb = (g.__cwReadCache ??= new WeakMap());
 const generations = (g.__cwReadGenerations ??= { species: 0, settings: 0 });
 
-export const READ_CACHE_TTL_MS = 5_000;
+const READ_CACHE_TTL_MS = 5_000;
 
 export function cachedRead<T>(db: object, ns: ReadNamespace, key: string, load: () => Promise<T>, ttlMs = READ_CACHE_TTL_MS): Promise<T> {
   let entries = byDb.get(db);

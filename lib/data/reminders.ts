@@ -112,7 +112,10 @@ export async function handleRunJob(job: Job) {
     if (!run) return;
     const members = await tx.select({ id: users.id }).from(users).where(optedIn).orderBy(users.email);
     if (members.length) {
-      await tx.insert(reminderRunMembers).values(members.map((m) => ({ runId, userId: m.id }))).onConflictDoNothing();
+      await tx
+        .insert(reminderRunMembers)
+        .values(members.map((m) => ({ runId, userId: m.id })))
+        .onConflictDoNothing();
     }
     for (const m of members) {
       await enqueue(REMINDER_MEMBER_QUEUE, { runId, userId: m.id }, { dedupeKey: `reminder:${runId}:${m.id}` }, tx);
@@ -124,7 +127,10 @@ export async function handleRunJob(job: Job) {
 
 async function settle(runId: string, userId: string, outcome: 'sent' | 'skipped' | 'failed', reason: string | null) {
   const db = await getDb();
-  await db.update(reminderRunMembers).set({ outcome, reason }).where(and(eq(reminderRunMembers.runId, runId), eq(reminderRunMembers.userId, userId)));
+  await db
+    .update(reminderRunMembers)
+    .set({ outcome, reason })
+    .where(and(eq(reminderRunMembers.runId, runId), eq(reminderRunMembers.userId, userId)));
 }
 
 /** The Message-ID of a member's reminder for a week: the same on every hand-over. */
@@ -144,15 +150,31 @@ export async function handleMemberJob(job: Job) {
   const weekOf = run.weekOf;
 
   const ledgerOf = async () =>
-    (await db.select().from(reminderSends).where(and(eq(reminderSends.weekOf, weekOf), eq(reminderSends.userId, userId))).limit(1))[0];
+    (
+      await db
+        .select()
+        .from(reminderSends)
+        .where(and(eq(reminderSends.weekOf, weekOf), eq(reminderSends.userId, userId)))
+        .limit(1)
+    )[0];
 
   let ledger = await ledgerOf();
   if (ledger && ledger.runId !== runId) return settle(runId, userId, 'skipped', `already settled for this week by an earlier run (${ledger.state})`);
   if (ledger && ledger.state !== 'sending') return settle(runId, userId, ledger.state === 'sent' ? 'sent' : 'failed', ledger.reason);
 
   const [member] = await db
-    .select({ id: users.id, name: users.name, email: users.email, role: users.role, tokenVersion: users.tokenVersion, reminderOptIn: users.reminderOptIn, disabled: users.disabled })
-    .from(users).where(eq(users.id, userId)).limit(1);
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      role: users.role,
+      tokenVersion: users.tokenVersion,
+      reminderOptIn: users.reminderOptIn,
+      disabled: users.disabled,
+    })
+    .from(users)
+    .where(eq(users.id, userId))
+    .limit(1);
   if (!ledger && (!member || !member.reminderOptIn || member.disabled)) return settle(runId, userId, 'skipped', 'reminders turned off');
   if (!member) return settle(runId, userId, 'failed', 'member removed');
 
@@ -162,7 +184,13 @@ export async function handleMemberJob(job: Job) {
 
   const settings = await getClubSettings();
   const baseUrl = new URL(env.NEXTAUTH_URL).origin;
-  const mail = await renderReminder({ clubName: settings.clubName, baseUrl, weekOf, items, unsubscribeUrl: unsubscribeUrlFor(userId, Date.now(), 'reminders') });
+  const mail = await renderReminder({
+    clubName: settings.clubName,
+    baseUrl,
+    weekOf,
+    items,
+    unsubscribeUrl: unsubscribeUrlFor(userId, Date.now(), 'reminders'),
+  });
 
   if (!ledger) {
     const [mine] = await db
@@ -178,8 +206,14 @@ export async function handleMemberJob(job: Job) {
   await sendMail({ to: member.email, subject: mail.subject, text: mail.text, html: mail.html, headers: mail.headers, messageId: ledger.messageId! });
 
   await db.transaction(async (tx) => {
-    await tx.update(reminderSends).set({ state: 'sent', updatedAt: sql`now()` }).where(eq(reminderSends.id, ledger.id));
-    await tx.update(reminderRunMembers).set({ outcome: 'sent', reason: null }).where(and(eq(reminderRunMembers.runId, runId), eq(reminderRunMembers.userId, userId)));
+    await tx
+      .update(reminderSends)
+      .set({ state: 'sent', updatedAt: sql`now()` })
+      .where(eq(reminderSends.id, ledger.id));
+    await tx
+      .update(reminderRunMembers)
+      .set({ outcome: 'sent', reason: null })
+      .where(and(eq(reminderRunMembers.runId, runId), eq(reminderRunMembers.userId, userId)));
   });
 }
 
@@ -188,7 +222,9 @@ export async function onMemberJobFailed(job: Job, error: string) {
   const runId = String(job.payload.runId);
   const userId = String(job.payload.userId);
   const db = await getDb();
-  await db.update(reminderSends).set({ state: 'failed', reason: error.slice(0, 200) })
+  await db
+    .update(reminderSends)
+    .set({ state: 'failed', reason: error.slice(0, 200) })
     .where(and(eq(reminderSends.runId, runId), eq(reminderSends.userId, userId), eq(reminderSends.state, 'sending')));
   await settle(runId, userId, 'failed', error.slice(0, 200));
 }

@@ -56,14 +56,26 @@ export async function previewImport(actor: SessionUser, scope: RecordScope, csv:
   if (id && first && last) {
     const db = await getDb();
     const have = new Set(
-      (await db.select({ day: temperatureDays.day }).from(temperatureDays)
-        .where(and(eq(temperatureDays.recordId, id), gte(temperatureDays.day, first), lte(temperatureDays.day, last)))).map((r) => r.day),
+      (
+        await db
+          .select({ day: temperatureDays.day })
+          .from(temperatureDays)
+          .where(and(eq(temperatureDays.recordId, id), gte(temperatureDays.day, first), lte(temperatureDays.day, last)))
+      ).map((r) => r.day),
     );
     replaces = parsed.days.filter((d) => have.has(d.date)).length;
   }
   return {
-    format: parsed.format, station: parsed.station, dayCount: parsed.days.length, firstDay: first, lastDay: last, replaces,
-    heatSum: accumulate(parsed.days).total, errors: parsed.errors, skipped: parsed.skipped, sample: parsed.days.slice(0, 10),
+    format: parsed.format,
+    station: parsed.station,
+    dayCount: parsed.days.length,
+    firstDay: first,
+    lastDay: last,
+    replaces,
+    heatSum: accumulate(parsed.days).total,
+    errors: parsed.errors,
+    skipped: parsed.skipped,
+    sample: parsed.days.slice(0, 10),
   };
 }
 
@@ -73,18 +85,24 @@ export async function importRecord(actor: SessionUser, scope: RecordScope, csv: 
   if (preview.errors.length) {
     const fields: Record<string, string[]> = {};
     for (const e of preview.errors.slice(0, 50)) (fields[`csv.line.${e.line}`] ??= []).push(e.message);
-    throw new AppError('invalid:csv', `The file has ${preview.errors.length} row error${preview.errors.length === 1 ? '' : 's'}; nothing was imported.`, fields);
+    throw new AppError(
+      'invalid:csv',
+      `The file has ${preview.errors.length} row error${preview.errors.length === 1 ? '' : 's'}; nothing was imported.`,
+      fields,
+    );
   }
   const days = parseTemperatureCsv(csv).days;
   const db = await getDb();
   const scopeKey = scopeKeyOf(actor, scope);
   await db.transaction(async (tx) => {
-    await tx.insert(temperatureRecords)
+    await tx
+      .insert(temperatureRecords)
       .values({ id: newPublicId(), scopeKey, ownerId: scope === 'club' ? null : actor.id, name: scope === 'club' ? 'Club record' : 'My record' })
       .onConflictDoUpdate({ target: temperatureRecords.scopeKey, set: { updatedAt: new Date() } });
     const [rec] = await tx.select({ id: temperatureRecords.id }).from(temperatureRecords).where(eq(temperatureRecords.scopeKey, scopeKey)).limit(1);
     for (let i = 0; i < days.length; i += 500) {
-      await tx.insert(temperatureDays)
+      await tx
+        .insert(temperatureDays)
         .values(days.slice(i, i + 500).map((d) => ({ recordId: rec.id, day: d.date, tmin: d.tmin, tmax: d.tmax })))
         .onConflictDoUpdate({ target: [temperatureDays.recordId, temperatureDays.day], set: { tmin: sql`excluded.tmin`, tmax: sql`excluded.tmax` } });
     }
@@ -97,8 +115,11 @@ async function daysOf(id: string, from?: string, to?: string): Promise<DayTemps[
   const conds = [eq(temperatureDays.recordId, id)];
   if (from) conds.push(gte(temperatureDays.day, from));
   if (to) conds.push(lte(temperatureDays.day, to));
-  const rows = await db.select({ date: temperatureDays.day, tmin: temperatureDays.tmin, tmax: temperatureDays.tmax })
-    .from(temperatureDays).where(and(...conds)).orderBy(asc(temperatureDays.day));
+  const rows = await db
+    .select({ date: temperatureDays.day, tmin: temperatureDays.tmin, tmax: temperatureDays.tmax })
+    .from(temperatureDays)
+    .where(and(...conds))
+    .orderBy(asc(temperatureDays.day));
   return rows;
 }
 
@@ -124,14 +145,16 @@ export async function listRecords(actor: SessionUser, hemisphere: 'north' | 'sou
       const y = Number(start.slice(0, 4));
       (byYear.get(y) ?? byYear.set(y, []).get(y)!).push(d);
     }
-    const years = [...byYear.entries()].sort(([a], [b]) => a - b).map(([year, ds]) => {
-      const start = `${year}-${hemisphere === 'north' ? '01-01' : '07-01'}`;
-      const sum = accumulate(ds);
-      const points = sum.cumulative
-        .map((c) => ({ day: Math.round((Date.parse(c.date) - Date.parse(start)) / 86_400_000), gdd: c.gdd }))
-        .filter((p, i, all) => p.day % 7 === 0 || i === all.length - 1);
-      return { year, total: sum.total, points };
-    });
+    const years = [...byYear.entries()]
+      .sort(([a], [b]) => a - b)
+      .map(([year, ds]) => {
+        const start = `${year}-${hemisphere === 'north' ? '01-01' : '07-01'}`;
+        const sum = accumulate(ds);
+        const points = sum.cumulative
+          .map((c) => ({ day: Math.round((Date.parse(c.date) - Date.parse(start)) / 86_400_000), gdd: c.gdd }))
+          .filter((p, i, all) => p.day % 7 === 0 || i === all.length - 1);
+        return { year, total: sum.total, points };
+      });
     out.push({ scope, dayCount: days.length, firstDay: days[0]?.date ?? null, lastDay: days.at(-1)?.date ?? null, years });
   }
   return out;
@@ -158,12 +181,14 @@ export async function planRecordFor(actor: Pick<SessionUser, 'id'>, today: strin
 /** Observations of one tree (the caller has checked ownership): its own and its saved answers' shoot states. */
 export async function observationsOf(ownerId: string, treeId: string): Promise<PlanObservation[]> {
   const db = await getDb();
-  const own = await db.select({ date: treeObservations.observedOn, shoot: treeObservations.shoot, task: treeObservations.task })
+  const own = await db
+    .select({ date: treeObservations.observedOn, shoot: treeObservations.shoot, task: treeObservations.task })
     .from(treeObservations)
     .where(and(eq(treeObservations.treeId, treeId), eq(treeObservations.ownerId, ownerId)))
     .orderBy(asc(treeObservations.observedOn))
     .limit(1000);
-  const saved = await db.select({ date: answers.observedOn, input: answers.input })
+  const saved = await db
+    .select({ date: answers.observedOn, input: answers.input })
     .from(answers)
     .where(and(eq(answers.treeId, treeId), eq(answers.userId, ownerId)))
     .orderBy(desc(answers.observedOn))
@@ -176,7 +201,10 @@ export async function observationsOf(ownerId: string, treeId: string): Promise<P
 
 export async function addObservation(ownerId: string, treeId: string, o: { date: string; shoot?: ShootState; task?: PlanTask }) {
   const db = await getDb();
-  const [{ count }] = await db.select({ count: sql<number>`count(*)::int` }).from(treeObservations).where(eq(treeObservations.treeId, treeId));
+  const [{ count }] = await db
+    .select({ count: sql<number>`count(*)::int` })
+    .from(treeObservations)
+    .where(eq(treeObservations.treeId, treeId));
   if (count >= 1000) throw new AppError('conflict:observation_limit', 'A tree keeps up to 1000 observations.');
   await db.insert(treeObservations).values({ treeId, ownerId, observedOn: o.date, shoot: o.shoot ?? null, task: o.task ?? null });
 }

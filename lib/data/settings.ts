@@ -23,7 +23,12 @@ export async function getClubSettings(): Promise<ClubSettingsDto> {
 
 async function loadClubSettings(db: Awaited<ReturnType<typeof getDb>>): Promise<ClubSettingsDto> {
   const [row] = await db
-    .select({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude, decandleOffsetDays: clubSettings.decandleOffsetDays })
+    .select({
+      clubName: clubSettings.clubName,
+      hemisphere: clubSettings.hemisphere,
+      defaultLatitude: clubSettings.defaultLatitude,
+      decandleOffsetDays: clubSettings.decandleOffsetDays,
+    })
     .from(clubSettings)
     .limit(1);
   return row ?? DEFAULTS;
@@ -36,7 +41,12 @@ export async function updateClubSettings(actor: SessionUser, input: SettingsInpu
     .insert(clubSettings)
     .values({ id: 1, ...input, updatedAt: new Date() })
     .onConflictDoUpdate({ target: clubSettings.id, set: { ...input, updatedAt: new Date() } })
-    .returning({ clubName: clubSettings.clubName, hemisphere: clubSettings.hemisphere, defaultLatitude: clubSettings.defaultLatitude, decandleOffsetDays: clubSettings.decandleOffsetDays });
+    .returning({
+      clubName: clubSettings.clubName,
+      hemisphere: clubSettings.hemisphere,
+      defaultLatitude: clubSettings.defaultLatitude,
+      decandleOffsetDays: clubSettings.decandleOffsetDays,
+    });
   invalidateReads('settings');
   return row;
 }

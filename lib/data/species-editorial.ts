@@ -114,9 +114,13 @@ async function saveOnBase(
       .where(and(eq(species.id, current.id), eq(species.latestRevision, baseRevision)))
       .returning({ id: species.id });
     if (!bumped) {
-      throw new AppError('conflict:revision', `Revision ${current.latestRevision} was saved after the one you started from (${baseRevision}). Reload, then make your change again.`, {
-        baseRevision: [`The latest revision is ${current.latestRevision}`],
-      });
+      throw new AppError(
+        'conflict:revision',
+        `Revision ${current.latestRevision} was saved after the one you started from (${baseRevision}). Reload, then make your change again.`,
+        {
+          baseRevision: [`The latest revision is ${current.latestRevision}`],
+        },
+      );
     }
     return writeRevision(tx, current, baseRevision + 1, input, actor);
   });
@@ -213,7 +217,10 @@ export async function previewSpeciesImport(actor: SessionUser, files: SpeciesImp
  * as the error. With `skipInvalid` the valid files are written and the invalid ones come back in
  * `skipped`, each with its messages per field.
  */
-export async function commitSpeciesImport(actor: SessionUser, input: Omit<SpeciesImportInput, 'skipInvalid'> & { skipInvalid?: boolean }): Promise<{ results: (SavedRevision | { slug: string; action: 'unchanged' })[]; skipped: ImportPreviewItem[] }> {
+export async function commitSpeciesImport(
+  actor: SessionUser,
+  input: Omit<SpeciesImportInput, 'skipInvalid'> & { skipInvalid?: boolean },
+): Promise<{ results: (SavedRevision | { slug: string; action: 'unchanged' })[]; skipped: ImportPreviewItem[] }> {
   assertEditor(actor);
   const all = await previewFiles(input.files);
   const bad = all.filter((p) => !p.ok);
@@ -221,7 +228,11 @@ export async function commitSpeciesImport(actor: SessionUser, input: Omit<Specie
   if (bad.length && (!input.skipInvalid || !preview.length)) {
     const fields: FieldErrors = {};
     for (const b of bad) for (const [k, v] of Object.entries(b.fields ?? {})) fields[`${b.name}: ${k}`] = v;
-    throw new AppError('invalid:import', preview.length ? `${bad.length} file(s) are not valid; nothing was imported.` : 'No file in this import is valid; nothing was imported.', fields);
+    throw new AppError(
+      'invalid:import',
+      preview.length ? `${bad.length} file(s) are not valid; nothing was imported.` : 'No file in this import is valid; nothing was imported.',
+      fields,
+    );
   }
   const skipped = bad.map(({ parsed: _parsed, ...item }) => item);
   const summary = input.summary || 'Imported from a species file';

@@ -40,7 +40,8 @@ function encodeCursor(c: Cursor) {
   return Buffer.from(JSON.stringify(c)).toString('base64url');
 }
 
-const badCursor = () => new AppError('bad_request:cursor', 'The cursor is not valid: start again from the first page.', { cursor: ['Not a cursor this list gave out'] });
+const badCursor = () =>
+  new AppError('bad_request:cursor', 'The cursor is not valid: start again from the first page.', { cursor: ['Not a cursor this list gave out'] });
 
 function decodeCursor(raw: string | undefined, searchKey: string | null): Cursor | null {
   if (!raw) return null;
@@ -58,7 +59,14 @@ function decodeCursor(raw: string | undefined, searchKey: string | null): Cursor
 
 /** A short, stable fingerprint of what a search page depends on (FNV-1a over the words and filters). */
 function searchFingerprint(query: SpeciesListQuery) {
-  const text = JSON.stringify([queryWords(query.q ?? ''), query.group ?? '', query.flush ?? '', query.vigour ?? '', query.needleMin ?? '', query.needleMax ?? '']);
+  const text = JSON.stringify([
+    queryWords(query.q ?? ''),
+    query.group ?? '',
+    query.flush ?? '',
+    query.vigour ?? '',
+    query.needleMin ?? '',
+    query.needleMax ?? '',
+  ]);
   let h = 0x811c9dc5;
   for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193) >>> 0;
   return h.toString(36);

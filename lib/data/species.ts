@@ -19,15 +19,12 @@ export interface SpeciesNameDto {
 }
 
 /** The published record of a species and its revision number, or null (unknown or never published). */
-export async function getPublishedRecord(slug: string): Promise<{ record: SpeciesRecord; body: string; revision: number } | null> {
+async function getPublishedRecord(slug: string): Promise<{ record: SpeciesRecord; body: string; revision: number } | null> {
   const db = await getDb();
   const [row] = await db
     .select({ data: speciesRevisions.data, body: speciesRevisions.body, revision: speciesRevisions.revision })
     .from(species)
-    .innerJoin(
-      speciesRevisions,
-      and(eq(speciesRevisions.speciesId, species.id), eq(speciesRevisions.revision, species.publishedRevision)),
-    )
+    .innerJoin(speciesRevisions, and(eq(speciesRevisions.speciesId, species.id), eq(speciesRevisions.revision, species.publishedRevision)))
     .where(and(eq(species.slug, slug), eq(speciesRevisions.status, 'published')))
     .limit(1);
   if (!row) return null;
@@ -143,13 +140,7 @@ export async function getSpeciesForViewer(viewer: SessionUser | null, slug: stri
     })
     .from(speciesRevisions)
     .leftJoin(users, eq(users.id, speciesRevisions.editorId))
-    .where(
-      and(
-        eq(speciesRevisions.speciesId, row.id),
-        eq(speciesRevisions.revision, wanted),
-        editor ? undefined : eq(speciesRevisions.status, 'published'),
-      ),
-    )
+    .where(and(eq(speciesRevisions.speciesId, row.id), eq(speciesRevisions.revision, wanted), editor ? undefined : eq(speciesRevisions.status, 'published')))
     .limit(1);
   if (!rev) throw new AppError('not_found:revision', 'No such revision of this species.');
   const parsed = speciesRecordSchema.safeParse(rev.data);

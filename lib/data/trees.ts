@@ -57,7 +57,10 @@ const columns = {
   updatedAt: trees.updatedAt,
 };
 
-type Row = { speciesName: string | null; speciesCommon: string[] | null; createdAt: Date; updatedAt: Date } & Omit<TreeDto, 'speciesName' | 'createdAt' | 'updatedAt'>;
+type Row = { speciesName: string | null; speciesCommon: string[] | null; createdAt: Date; updatedAt: Date } & Omit<
+  TreeDto,
+  'speciesName' | 'createdAt' | 'updatedAt'
+>;
 
 function toDto({ speciesCommon, ...r }: Row): TreeDto {
   const common = speciesCommon?.[0];
@@ -75,10 +78,7 @@ function baseQuery(db: Awaited<ReturnType<typeof getDb>>) {
 
 export async function listTrees(actor: SessionUser): Promise<TreeDto[]> {
   const db = await getDb();
-  const rows = await baseQuery(db)
-    .where(eq(trees.ownerId, actor.id))
-    .orderBy(asc(trees.name), asc(trees.id))
-    .limit(MAX_TREES_PER_MEMBER);
+  const rows = await baseQuery(db).where(eq(trees.ownerId, actor.id)).orderBy(asc(trees.name), asc(trees.id)).limit(MAX_TREES_PER_MEMBER);
   return rows.map(toDto);
 }
 
@@ -90,17 +90,6 @@ export async function getTree(actor: SessionUser, id: string): Promise<TreeDto> 
     .limit(1);
   if (!row) throw new AppError('not_found:tree', 'No such tree.');
   return toDto(row);
-}
-
-/** Whether the tree exists and belongs to the actor (for photos and answers tied to it). */
-export async function ownsTree(actorId: string, id: string): Promise<boolean> {
-  const db = await getDb();
-  const [row] = await db
-    .select({ id: trees.id })
-    .from(trees)
-    .where(and(eq(trees.id, id), eq(trees.ownerId, actorId)))
-    .limit(1);
-  return !!row;
 }
 
 async function assertSpeciesExists(slug: string) {
@@ -127,7 +116,10 @@ export async function createTree(actor: SessionUser, input: TreeInput): Promise<
   const values = normalise(input);
   await assertSpeciesExists(values.speciesSlug);
   const db = await getDb();
-  const [{ count }] = await db.select({ count: sql<number>`count(*)::int` }).from(trees).where(eq(trees.ownerId, actor.id));
+  const [{ count }] = await db
+    .select({ count: sql<number>`count(*)::int` })
+    .from(trees)
+    .where(eq(trees.ownerId, actor.id));
   if (count >= MAX_TREES_PER_MEMBER) throw new AppError('conflict:tree_limit', `A member can keep up to ${MAX_TREES_PER_MEMBER} trees.`);
   const id = newPublicId();
   await db.insert(trees).values({ id, ownerId: actor.id, ...values });

@@ -36,7 +36,15 @@ const toDto = (r: { createdAt: Date } & Omit<UserDto, 'createdAt'>): UserDto => 
 export async function verifyCredentials(email: string, password: string) {
   const db = await getDb();
   const [u] = await db
-    .select({ id: users.id, name: users.name, email: users.email, role: users.role, disabled: users.disabled, tokenVersion: users.tokenVersion, passwordHash: users.passwordHash })
+    .select({
+      id: users.id,
+      name: users.name,
+      email: users.email,
+      role: users.role,
+      disabled: users.disabled,
+      tokenVersion: users.tokenVersion,
+      passwordHash: users.passwordHash,
+    })
     .from(users)
     .where(eq(users.email, email))
     .limit(1);
@@ -76,7 +84,10 @@ export async function hasActiveAccount(email: string) {
 /** Ends every session of the user (sign-out, role change, disable). */
 export async function bumpTokenVersion(id: string) {
   const db = await getDb();
-  await db.update(users).set({ tokenVersion: sql`${users.tokenVersion} + 1` }).where(eq(users.id, id));
+  await db
+    .update(users)
+    .set({ tokenVersion: sql`${users.tokenVersion} + 1` })
+    .where(eq(users.id, id));
   invalidate(id);
 }
 
@@ -125,7 +136,11 @@ export async function updateProfile(actor: SessionUser, patch: { name?: string; 
   // An empty patch changes nothing (and an UPDATE with no columns is an SQL error, not a 500 to show).
   if (Object.values(patch).every((v) => v === undefined)) return getProfile(actor);
   const db = await getDb();
-  const [u] = await db.update(users).set(patch).where(and(eq(users.id, actor.id))).returning(dtoColumns);
+  const [u] = await db
+    .update(users)
+    .set(patch)
+    .where(and(eq(users.id, actor.id)))
+    .returning(dtoColumns);
   invalidate(actor.id);
   if (!u) throw new AppError('not_found:user');
   return toDto(u);

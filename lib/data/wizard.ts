@@ -13,7 +13,7 @@ export function todayIso(now = new Date()): string {
   return now.toISOString().slice(0, 10);
 }
 
-export async function wizardContext(): Promise<WizardContext> {
+async function wizardContext(): Promise<WizardContext> {
   const s = await getClubSettings();
   return { hemisphere: s.hemisphere, latitude: s.defaultLatitude, today: todayIso(), decandleOffsetDays: s.decandleOffsetDays };
 }
@@ -56,8 +56,14 @@ export async function getTreePrefill(treeId: string, viewer: { id: string } | nu
   const db = await getDb();
   const [t] = await db
     .select({
-      id: trees.id, name: trees.name, speciesSlug: trees.speciesSlug, shape: trees.containerShape,
-      lengthCm: trees.containerLengthCm, widthCm: trees.containerWidthCm, collectedFromWild: trees.collectedFromWild, collectedOn: trees.collectedOn,
+      id: trees.id,
+      name: trees.name,
+      speciesSlug: trees.speciesSlug,
+      shape: trees.containerShape,
+      lengthCm: trees.containerLengthCm,
+      widthCm: trees.containerWidthCm,
+      collectedFromWild: trees.collectedFromWild,
+      collectedOn: trees.collectedOn,
     })
     .from(trees)
     .where(and(eq(trees.id, treeId), eq(trees.ownerId, viewer.id)))

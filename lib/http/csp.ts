@@ -20,11 +20,4 @@ export function pagePolicy(nonce: string, dev = false): string {
   ].join('; ');
 }
 
-export const API_POLICY = [
-  "default-src 'none'",
-  "object-src 'none'",
-  "base-uri 'none'",
-  "form-action 'none'",
-  "frame-ancestors 'none'",
-  'sandbox',
-].join('; ');
+export const API_POLICY = ["default-src 'none'", "object-src 'none'", "base-uri 'none'", "form-action 'none'", "frame-ancestors 'none'", 'sandbox'].join('; ');

@@ -10,9 +10,15 @@ import { AppError } from '@/lib/errors';
  */
 export async function assertMayWriteRecord(req: Request, actor: SessionUser): Promise<void> {
   if (hasRole(actor.role, 'librarian')) return;
-  const raw: unknown = await req.clone().json().catch(() => null);
+  const raw: unknown = await req
+    .clone()
+    .json()
+    .catch(() => null);
   const scope = raw && typeof raw === 'object' ? (raw as { scope?: unknown }).scope : undefined;
   if (scope !== 'member') {
-    throw new AppError('forbidden:temperature_record', 'Only a librarian or an administrator keeps the club’s temperature record; members may import their own.');
+    throw new AppError(
+      'forbidden:temperature_record',
+      'Only a librarian or an administrator keeps the club’s temperature record; members may import their own.',
+    );
   }
 }

@@ -27,7 +27,7 @@ function ownOrigins(req: Request): Set<string> {
  * is a non-browser client, which carries no victim's cookies. `Origin: null` (sandboxed frames,
  * some redirects) is refused, as is any Sec-Fetch-Site of `cross-site`.
  */
-export function assertSameOrigin(req: Request) {
+function assertSameOrigin(req: Request) {
   if (!MUTATING.has(req.method)) return;
   const origin = req.headers.get('origin');
   const fetchSite = req.headers.get('sec-fetch-site');
@@ -48,7 +48,7 @@ export function errorResponse(e: unknown): NextResponse {
 type Ctx<P> = { params: Promise<P> };
 
 /** Who may call: a role (a member is any signed-in user), or `public` for no session at all. */
-export type RouteAuth = Role | 'public';
+type RouteAuth = Role | 'public';
 
 export interface RouteOptions {
   /** Checked after the origin and the body cap, before any validation: 401/403 come before 422. */
@@ -71,7 +71,7 @@ export interface RouteOptions {
 
 type Infer<T, Else> = T extends z.ZodType ? z.infer<T> : Else;
 
-export interface RouteInput<O extends RouteOptions, P> {
+interface RouteInput<O extends RouteOptions, P> {
   /** The session user, read once for this request (null only on `public` routes or without `auth`). */
   user: O['auth'] extends Role ? SessionUser : SessionUser | null;
   params: Infer<O['params'], P>;

@@ -86,7 +86,11 @@ const inlineByClass: Record<string, string> = {
 
 export function inlineBodyStyles(html: string): string {
   return html.replace(/<(a|span|p|div)\b([^>]*?)\sclass="([^"]*)"/g, (all, tag: string, before: string, cls: string) => {
-    const style = cls.split(/\s+/).map((c) => inlineByClass[c]).filter(Boolean).join(';');
+    const style = cls
+      .split(/\s+/)
+      .map((c) => inlineByClass[c])
+      .filter(Boolean)
+      .join(';');
     return style ? `<${tag}${before} class="${cls}" style="${style}"` : all;
   });
 }
@@ -116,7 +120,16 @@ export async function renderDigest(input: DigestInput): Promise<DigestMail & { h
     `You get these because you asked for meeting notes by e-mail. Stop them: ${unsubscribeUrl}`,
   ].join('\n');
   const html = await render(
-    createElement(DigestEmail, { clubName, when, title: note.title, authorName: note.authorName, bodyHtml: inlineBodyStyles(absolutiseHtml(input.html, baseUrl)), noteUrl, unsubscribeUrl, subject }),
+    createElement(DigestEmail, {
+      clubName,
+      when,
+      title: note.title,
+      authorName: note.authorName,
+      bodyHtml: inlineBodyStyles(absolutiseHtml(input.html, baseUrl)),
+      noteUrl,
+      unsubscribeUrl,
+      subject,
+    }),
   );
   return { subject, html, text, headers: digestHeaders(unsubscribeUrl) };
 }

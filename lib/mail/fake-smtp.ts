@@ -28,15 +28,18 @@ export async function startFakeSmtp(port: number): Promise<SMTPServer> {
           const raw = Buffer.concat(chunks).toString('utf8');
           const parsed = await simpleParser(raw);
           const db = await getDb();
-          await db.insert(outboxMessages).values({
-            envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
-            envelopeTo: session.envelope.rcptTo.map((r) => r.address),
-            subject: parsed.subject ?? '',
-            text: parsed.text ?? null,
-            html: typeof parsed.html === 'string' ? parsed.html : null,
-            raw,
-            messageId: parsed.messageId ?? null,
-          }).onConflictDoNothing({ target: outboxMessages.messageId });
+          await db
+            .insert(outboxMessages)
+            .values({
+              envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+              envelopeTo: session.envelope.rcptTo.map((r) => r.address),
+              subject: parsed.subject ?? '',
+              text: parsed.text ?? null,
+              html: typeof parsed.html === 'string' ? parsed.html : null,
+              raw,
+              messageId: parsed.messageId ?? null,
+            })
+            .onConflictDoNothing({ target: outboxMessages.messageId });
           callback();
         } catch (e) {
           callback(e as Error);

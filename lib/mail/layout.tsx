@@ -17,7 +17,7 @@ export const mailColors = {
   page: '#f7f7f5',
 };
 
-export const mailFont = 'system-ui, -apple-system, "Segoe UI", Roboto, Helvetica, Arial, sans-serif';
+const mailFont = 'system-ui, -apple-system, "Segoe UI", Roboto, Helvetica, Arial, sans-serif';
 
 export function MailFrame({ title, preview, children, footer }: { title: string; preview: string; children: ReactNode; footer: ReactNode }) {
   return (
@@ -27,7 +27,16 @@ export function MailFrame({ title, preview, children, footer }: { title: string;
       </Head>
       <Preview>{preview}</Preview>
       <Body style={{ backgroundColor: mailColors.page, color: mailColors.ink, fontFamily: mailFont, margin: 0, padding: '16px 0' }}>
-        <Container style={{ maxWidth: '600px', width: '100%', backgroundColor: '#ffffff', border: `1px solid ${mailColors.rule}`, borderRadius: '8px', padding: '16px 20px' }}>
+        <Container
+          style={{
+            maxWidth: '600px',
+            width: '100%',
+            backgroundColor: '#ffffff',
+            border: `1px solid ${mailColors.rule}`,
+            borderRadius: '8px',
+            padding: '16px 20px',
+          }}
+        >
           {children}
           <Hr style={{ borderColor: mailColors.rule, margin: '24px 0 12px' }} />
           <Section style={{ fontSize: '14px', lineHeight: '1.5', color: mailColors.faint }}>{footer}</Section>
@@ -37,7 +46,7 @@ export function MailFrame({ title, preview, children, footer }: { title: string;
   );
 }
 
-export const pStyle = { fontSize: '16px', lineHeight: '1.55', margin: '0 0 12px' } as const;
+const pStyle = { fontSize: '16px', lineHeight: '1.55', margin: '0 0 12px' } as const;
 export function P({ children, style }: { children: ReactNode; style?: Record<string, string | number> }) {
   return <Text style={{ ...pStyle, ...style }}>{children}</Text>;
 }

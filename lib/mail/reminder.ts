@@ -25,7 +25,7 @@ export interface ReminderInput {
 const longDate = (iso: string) => new Date(`${iso}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
 /** Tasks grouped by tree, trees in the order of their first task (the items come sorted by date). */
-export function groupByTree(items: WeekItem[], baseUrl: string, weekOf: string): ReminderTree[] {
+function groupByTree(items: WeekItem[], baseUrl: string, weekOf: string): ReminderTree[] {
   const byTree = new Map<string, ReminderTree>();
   for (const it of items) {
     const tree = byTree.get(it.treeId) ?? { name: it.treeName, url: `${baseUrl}/trees/${it.treeId}`, tasks: [] };
@@ -49,6 +49,8 @@ export async function renderReminder(input: ReminderInput) {
     `Open This week on the club site: ${homeUrl}`,
     `You get this because you turned on the weekly reminder on your profile. Stop these e-mails: ${input.unsubscribeUrl}`,
   ].join('\n');
-  const html = await render(createElement(ReminderEmail, { clubName: input.clubName, weekLabel, trees, homeUrl, unsubscribeUrl: input.unsubscribeUrl, subject }));
+  const html = await render(
+    createElement(ReminderEmail, { clubName: input.clubName, weekLabel, trees, homeUrl, unsubscribeUrl: input.unsubscribeUrl, subject }),
+  );
   return { subject, text, html, headers: digestHeaders(input.unsubscribeUrl), tasks: input.items.length };
 }

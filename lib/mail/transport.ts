@@ -4,7 +4,7 @@ import { env } from '@/lib/env';
 
 const g = globalThis as unknown as { __cwMail?: Transporter };
 
-export function mailer(): Transporter {
+function mailer(): Transporter {
   return (g.__cwMail ??= nodemailer.createTransport(env.smtpUrl));
 }
 

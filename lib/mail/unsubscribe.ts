@@ -8,7 +8,7 @@ import { createHmac, timingSafeEqual } from 'node:crypto';
 export const UNSUBSCRIBE_TTL_MS = 180 * 24 * 3600 * 1000;
 const PURPOSE = 'digest-unsubscribe';
 
-export const mailLists = ['digest', 'reminders'] as const;
+const mailLists = ['digest', 'reminders'] as const;
 export type MailList = (typeof mailLists)[number];
 
 export type UnsubscribeCheck = { ok: true; userId: string; list: MailList } | { ok: false; reason: 'malformed' | 'bad_signature' | 'expired' };

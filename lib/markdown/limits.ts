@@ -6,7 +6,7 @@
 /** Deepest nesting of block quotes, list items and brackets that is accepted. */
 export const MAX_MARKDOWN_DEPTH = 32;
 /** Longest source the renderer parses at all (a meeting note is capped lower on save). */
-export const MAX_MARKDOWN_CHARS = 200_000;
+const MAX_MARKDOWN_CHARS = 200_000;
 
 const FENCE = /^ {0,3}(`{3,}|~{3,})/;
 const LIST_MARKER = /^(?:[-*+]|\d{1,9}[.)])(?=[ \t]|$)/;

@@ -47,9 +47,7 @@ export function parseInternalLink(href: string): InternalLink | null {
  * a preview card, or plain text with a note when the target must not be shown (private or gone).
  * Resolutions are computed by the caller beforehand; the pipeline itself does no I/O.
  */
-export type LinkResolution =
-  | { state: 'card'; meta: string }
-  | { state: 'unavailable'; note: string };
+export type LinkResolution = { state: 'card'; meta: string } | { state: 'unavailable'; note: string };
 
 export interface RenderOptions {
   resolveLink?: (link: InternalLink) => LinkResolution | undefined;
@@ -84,15 +82,10 @@ function markInternalLinks() {
   };
 }
 
-const processor = remark()
-  .use(remarkGfm)
-  .use(remarkRehype)
-  .use(rehypeSanitize, schema)
-  .use(markInternalLinks)
-  .use(rehypeStringify);
+const processor = remark().use(remarkGfm).use(remarkRehype).use(rehypeSanitize, schema).use(markInternalLinks).use(rehypeStringify);
 
 /** The source as escaped paragraphs: what is shown when it is over the limits or fails to render. */
-export function plainTextHtml(source: string): string {
+function plainTextHtml(source: string): string {
   const esc = (t: string) => t.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
   const capped = source.length > 20_000 ? `${source.slice(0, 20_000)}…` : source;
   return capped

@@ -80,12 +80,3 @@ export async function startWorker(opts: WorkerOptions = {}) {
     }
   })();
 }
-
-export async function stopWorker() {
-  const state = g.__cwWorker;
-  if (!state) return;
-  state.running = false;
-  state.wake?.();
-  await state.loop;
-  g.__cwWorker = undefined;
-}

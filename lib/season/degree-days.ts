@@ -10,7 +10,7 @@ export interface DayTemps {
   tmax: number;
 }
 
-export interface CumulativeDay {
+interface CumulativeDay {
   date: string;
   gdd: number;
 }

@@ -2,9 +2,7 @@ import { evaluate } from '@/lib/wizard/engine';
 import type { WizardSpecies } from '@/lib/validation/species';
 import type { ContainerInput, Health, Hemisphere, ShootState, Stage, WizardResult } from '@/lib/wizard/types';
 import { addDays, daysBetween, type DayTemps } from './degree-days';
-import {
-  expectedShoot, seasonStart, shiftTimeline, shootTimeline, thermalSeason, tropical, type ShootTimeline,
-} from './thermal';
+import { expectedShoot, seasonStart, shiftTimeline, shootTimeline, thermalSeason, tropical, type ShootTimeline } from './thermal';
 
 // A tree's plan for the season. The timing comes from thermal time (thermal.ts); WHAT to do on
 // each day comes from the wizard engine itself: the plan asks `evaluate` about every day of the
@@ -14,9 +12,9 @@ import {
 
 export const planTasks = ['candle-work', 'decandle', 'prune', 'thin', 'feed', 'repot'] as const;
 export type PlanTask = (typeof planTasks)[number];
-export type PlanBasis = 'degree-days' | 'latitude' | 'observed';
+type PlanBasis = 'degree-days' | 'latitude' | 'observed';
 
-export const taskLabels: Record<PlanTask, string> = {
+const taskLabels: Record<PlanTask, string> = {
   'candle-work': 'Pinch or shorten candles',
   decandle: 'Decandle',
   prune: 'Prune hardened shoots',
@@ -150,18 +148,19 @@ export function planForTree(input: PlanInput): TreePlan {
 
   const todayIndex = daysBetween(start, today);
   const degreeDaysToDate =
-    hasRecord && thermal.measuredThrough >= 0
-      ? Math.round(thermal.cumulative[Math.min(thermal.measuredThrough, Math.max(0, todayIndex))] * 10) / 10
-      : null;
+    hasRecord && thermal.measuredThrough >= 0 ? Math.round(thermal.cumulative[Math.min(thermal.measuredThrough, Math.max(0, todayIndex))] * 10) / 10 : null;
 
   const timingReason = (task: PlanTask) => {
     const how =
-      basis === 'degree-days' ? 'the club’s temperature record and its earlier years'
-      : basis === 'observed' ? 'your own observation of this tree'
-      : `a climate estimate for latitude ${Math.abs(latitude)}° (no temperature record yet)`;
+      basis === 'degree-days'
+        ? 'the club’s temperature record and its earlier years'
+        : basis === 'observed'
+          ? 'your own observation of this tree'
+          : `a climate estimate for latitude ${Math.abs(latitude)}° (no temperature record yet)`;
     const share =
-      task === 'repot' ? 'as the buds swell, before the candles extend'
-      : 'shoots expected to finish extending at about 41% of the year’s heat sum above +5 °C (“Intra-annual height increment of Pinus sylvestris at high latitudes in Finland”, Tree Physiology 27(9):1347–1353 (2007))';
+      task === 'repot'
+        ? 'as the buds swell, before the candles extend'
+        : 'shoots expected to finish extending at about 41% of the year’s heat sum above +5 °C (“Intra-annual height increment of Pinus sylvestris at high latitudes in Finland”, Tree Physiology 27(9):1347–1353 (2007))';
     return `Timed from ${how}: ${share}.`;
   };
 
@@ -208,15 +207,26 @@ export function planForTree(input: PlanInput): TreePlan {
       if (!on && from >= 0) {
         const first = days[from].result;
         const engineReasons =
-          task === 'feed' ? [first.fertilizer.window, first.fertilizer.purpose].filter(Boolean)
-          : task === 'repot' ? ['Repot as the tree comes out of dormancy; pines go first (common practice, no published source). Not in a year you decandle.']
-          : first.reasons.slice(0, 3).map((r) => r.text);
+          task === 'feed'
+            ? [first.fertilizer.window, first.fertilizer.purpose].filter(Boolean)
+            : task === 'repot'
+              ? ['Repot as the tree comes out of dormancy; pines go first (common practice, no published source). Not in a year you decandle.']
+              : first.reasons.slice(0, 3).map((r) => r.text);
         const w: PlanWindow = {
-          task, label: taskLabels[task], from: days[from].date, to: days[i - 1].date, basis,
-          reasons: [timingReason(task), ...engineReasons], doneOn: null,
+          task,
+          label: taskLabels[task],
+          from: days[from].date,
+          to: days[i - 1].date,
+          basis,
+          reasons: [timingReason(task), ...engineReasons],
+          doneOn: null,
         };
         const done = (input.observations ?? []).filter((o) => o.task === task && o.date >= addDays(w.from, -14) && o.date <= addDays(w.to, 14));
-        if (done.length) w.doneOn = done.map((o) => o.date).sort().at(-1)!;
+        if (done.length)
+          w.doneOn = done
+            .map((o) => o.date)
+            .sort()
+            .at(-1)!;
         windows.push(w);
         from = -1;
       }

@@ -9,7 +9,7 @@ import type { DayTemps } from './degree-days';
 //    a day needs both. source: NOAA NCEI, GHCN-Daily readme (by_station format)
 // Pure: the preview and the import both call it; nothing is written unless there are no errors.
 
-export interface CsvRowError {
+interface CsvRowError {
   line: number;
   message: string;
 }
@@ -23,7 +23,7 @@ export interface ParsedTemperatures {
   skipped: CsvRowError[];
 }
 
-export const MAX_CSV_LINES = 40_000;
+const MAX_CSV_LINES = 40_000;
 
 const splitLines = (text: string) => text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
 const GHCN_LINE = /^[A-Z0-9]{11},\d{8},[A-Z0-9]{4},/;
@@ -32,7 +32,13 @@ export function parseTemperatureCsv(text: string): ParsedTemperatures {
   const lines = splitLines(text);
   const first = lines.find((l) => l.trim() !== '') ?? '';
   if (lines.length > MAX_CSV_LINES) {
-    return { format: 'unknown', station: null, days: [], errors: [{ line: MAX_CSV_LINES + 1, message: `At most ${MAX_CSV_LINES} lines in one file.` }], skipped: [] };
+    return {
+      format: 'unknown',
+      station: null,
+      days: [],
+      errors: [{ line: MAX_CSV_LINES + 1, message: `At most ${MAX_CSV_LINES} lines in one file.` }],
+      skipped: [],
+    };
   }
   if (GHCN_LINE.test(first)) return parseGhcn(lines);
   return parsePlain(lines);

@@ -15,9 +15,9 @@ export const ELONGATION_DONE_SHARE = 0.41;
 /** Our own rule (no published value found): candles begin to extend at a tenth of the annual sum. */
 export const CANDLE_START_SHARE = 0.1;
 /** Our own rule: needles break out of their sheaths over the last quarter or so of elongation. */
-export const NEEDLES_OPEN_SHARE = 0.3;
+const NEEDLES_OPEN_SHARE = 0.3;
 /** Our own rule, following the common practice of repotting as buds swell (pines come out of dormancy first). */
-export const BUD_SWELL_SHARE = 0.03;
+const BUD_SWELL_SHARE = 0.03;
 
 export type SeasonHemisphere = 'north' | 'south';
 
@@ -34,7 +34,7 @@ export function seasonStart(today: string, hemisphere: SeasonHemisphere): string
  * latitude. // from memory: our own approximation of temperate coastal-to-continental climates,
  * not a published model. Within the tropics it is not used (see `tropical`).
  */
-export function latitudeMeanTemp(latitude: number, dayOfSeasonYear: number): number {
+function latitudeMeanTemp(latitude: number, dayOfSeasonYear: number): number {
   const lat = Math.abs(latitude);
   const mean = 30 - 0.38 * lat; // from memory: 45° → about 13 °C, 60° → about 7 °C
   const swing = 3 + 0.18 * lat; // from memory: half the yearly range, 45° → about 11 °C
@@ -120,7 +120,7 @@ export interface ShootTimeline {
 }
 
 /** The first day the heat sum reaches `share` of the annual sum (the season's last day if never). */
-export function dayAtShare(t: ThermalSeason, share: number): string {
+function dayAtShare(t: ThermalSeason, share: number): string {
   const target = share * t.annualSum;
   const i = t.cumulative.findIndex((c) => c >= target);
   return addDays(t.start, i < 0 ? 364 : i);

@@ -10,11 +10,9 @@ import { markdownProblem } from '@/lib/markdown/limits';
 // preview and the seeder can report them and write nothing.
 
 export const SPECIES_CONTENT_DIR = 'content/species';
-export const MAX_BODY_CHARS = 40_000;
+const MAX_BODY_CHARS = 40_000;
 
-export type ParsedSpecies =
-  | { ok: true; record: SpeciesRecord; body: string }
-  | { ok: false; message: string; fields: FieldErrors };
+export type ParsedSpecies = { ok: true; record: SpeciesRecord; body: string } | { ok: false; message: string; fields: FieldErrors };
 
 class FrontMatterError extends Error {
   constructor(readonly problems: string[]) {

@@ -17,10 +17,18 @@ const fieldWords: Record<string, string> = {
   cautions: 'Cautions',
   traits: 'Traits',
 };
-const partWords: Record<string, string> = { value: 'value', provenance: 'source kind', citation: 'citation', note: 'note', min: 'lowest', max: 'highest', text: 'text' };
+const partWords: Record<string, string> = {
+  value: 'value',
+  provenance: 'source kind',
+  citation: 'citation',
+  note: 'note',
+  min: 'lowest',
+  max: 'highest',
+  text: 'text',
+};
 
 /** `traits.flushHabit.value` → "Flush habit (trade), value"; `commonNames.2` → "Common names, entry 3". */
-export function fieldLabel(path: readonly PropertyKey[]): string {
+function fieldLabel(path: readonly PropertyKey[]): string {
   const [head, ...rest] = path.map(String);
   if (head === undefined) return 'The file';
   let label = fieldWords[head] ?? head;
@@ -46,7 +54,14 @@ function shown(v: unknown): string {
   return String(v);
 }
 
-const kindWords: Record<string, string> = { string: 'text', number: 'a number', int: 'a whole number', boolean: 'yes or no', array: 'a list', object: 'a group of fields' };
+const kindWords: Record<string, string> = {
+  string: 'text',
+  number: 'a number',
+  int: 'a whole number',
+  boolean: 'yes or no',
+  array: 'a list',
+  object: 'a group of fields',
+};
 
 function orList(values: readonly unknown[]): string {
   const words = values.map(String);
@@ -76,7 +91,12 @@ export function speciesFieldErrors(error: ZodError, data: unknown): FieldErrors 
       const { origin } = issue as { origin?: string };
       const limit = Number((issue as { minimum?: number | bigint; maximum?: number | bigint }).minimum ?? (issue as { maximum?: number | bigint }).maximum);
       const small = issue.code === 'too_small';
-      if (origin === 'string') text = small ? (limit <= 1 ? `${label} is empty: write something or leave the field out.` : `${label} is too short: at least ${limit} characters.`) : `${label} is too long: at most ${limit} characters.`;
+      if (origin === 'string')
+        text = small
+          ? limit <= 1
+            ? `${label} is empty: write something or leave the field out.`
+            : `${label} is too short: at least ${limit} characters.`
+          : `${label} is too long: at most ${limit} characters.`;
       else if (origin === 'array') text = small ? `${label}: give at least ${limit}.` : `${label}: at most ${limit} entries.`;
       else text = `${label}: ${shown(found)} is too ${small ? 'small' : 'large'}; it must be ${small ? 'at least' : 'at most'} ${limit}.`;
     } else if (issue.code === 'invalid_format') {
@@ -98,7 +118,11 @@ export function yamlProblems(errors: readonly YAMLError[], frontMatter: string):
   const lines = frontMatter.split(/\r?\n/);
   const offset = /^\r?\n/.test(frontMatter) ? 0 : 1;
   return errors.map((e) => {
-    const reason = e.message.split(/ at line \d+, column \d+/)[0].split('\n')[0].trim().replace(/\.?$/, '.');
+    const reason = e.message
+      .split(/ at line \d+, column \d+/)[0]
+      .split('\n')[0]
+      .trim()
+      .replace(/\.?$/, '.');
     const pos = e.linePos?.[0];
     if (!pos) return reason;
     const source = lines[pos.line - 1]?.trim();

@@ -17,8 +17,19 @@ export const traitLabels: Record<keyof SpeciesTraits, string> = {
 export const traitOrder = Object.keys(traitLabels) as (keyof SpeciesTraits)[];
 
 export const groupLabels: Record<string, string> = {
-  pine: 'Pine', larch: 'Larch', spruce: 'Spruce', fir: 'Fir', 'douglas-fir': 'Douglas fir', hemlock: 'Hemlock', cedar: 'Cedar',
-  juniper: 'Juniper', cypress: 'Cypress', redwood: 'Cryptomeria and swamp cypress', yew: 'Yew', podocarp: 'Podocarp', other: 'Other',
+  pine: 'Pine',
+  larch: 'Larch',
+  spruce: 'Spruce',
+  fir: 'Fir',
+  'douglas-fir': 'Douglas fir',
+  hemlock: 'Hemlock',
+  cedar: 'Cedar',
+  juniper: 'Juniper',
+  cypress: 'Cypress',
+  redwood: 'Cryptomeria and swamp cypress',
+  yew: 'Yew',
+  podocarp: 'Podocarp',
+  other: 'Other',
 };
 
 export const valueLabels: Record<string, string> = {

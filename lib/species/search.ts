@@ -15,7 +15,7 @@ export interface SearchableSpecies {
   synonyms: string[];
 }
 
-export type NameKind = 'botanical' | 'common' | 'synonym';
+type NameKind = 'botanical' | 'common' | 'synonym';
 
 /** Which of a species' names the query matched, and how. */
 export interface SearchMatch {
@@ -34,10 +34,10 @@ export interface SearchHit<T> {
   match: SearchMatch;
 }
 
-export const MAX_QUERY_WORDS = 8;
+const MAX_QUERY_WORDS = 8;
 
 /** Lower case, accents dropped, everything but letters and digits a space. */
-export function normalizeText(s: string): string {
+function normalizeText(s: string): string {
   return s
     .normalize('NFKD')
     .replace(/[\u0300-\u036f]/g, '')
@@ -52,7 +52,7 @@ export function queryWords(q: string): string[] {
 }
 
 /** Edits a word of this length may carry and still count as the same word. */
-export function allowedEdits(length: number): number {
+function allowedEdits(length: number): number {
   return length <= 3 ? 0 : length <= 6 ? 1 : 2;
 }
 
@@ -80,7 +80,7 @@ export function editDistance(a: string, b: string, max: number): number {
 }
 
 /** Trigrams of a word padded like PostgreSQL's pg_trgm: two spaces before, one after. */
-export function trigrams(word: string): string[] {
+function trigrams(word: string): string[] {
   const padded = `  ${word} `;
   const out = new Set<string>();
   for (let i = 0; i + 3 <= padded.length; i++) out.add(padded.slice(i, i + 3));
@@ -203,7 +203,9 @@ function wordMatches(index: SpeciesSearchIndex<SearchableSpecies>, q: string): M
  */
 function nameScore(missing: number, edits: number, partial: number, genusMiss: boolean, unasked: number, kind: NameKind, primary: boolean) {
   const kindRank = kind === 'botanical' ? 0 : kind === 'common' ? (primary ? 1 : 2) : 3;
-  return missing * 100_000_000 + Math.min(edits, 99) * 1_000_000 + Math.min(partial, 9) * 100_000 + (genusMiss ? 10_000 : 0) + Math.min(unasked, 99) * 100 + kindRank;
+  return (
+    missing * 100_000_000 + Math.min(edits, 99) * 1_000_000 + Math.min(partial, 9) * 100_000 + (genusMiss ? 10_000 : 0) + Math.min(unasked, 99) * 100 + kindRank
+  );
 }
 
 /** Compare two hits: score, then botanical name and slug by code unit (the same in every locale). */

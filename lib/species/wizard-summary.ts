@@ -3,8 +3,10 @@ import { techniqueOf, type Technique } from '@/lib/wizard/groups';
 
 // What the wizard does for each group that makes no candles, in the engine's own terms.
 const nonPine: Partial<Record<Technique, string>> = {
-  'scale-foliage': 'Scale or needle foliage: the wizard suggests trimming long new shoots with scissors back to a fork that has green beyond it, never shearing or pulling tips off with fingers, and never cutting into the bare inner part of a branch.',
-  spruce: 'Buds along the shoot: the wizard suggests shortening strong new shoots while soft, and cutting hardened ones back to a side bud in late summer or autumn.',
+  'scale-foliage':
+    'Scale or needle foliage: the wizard suggests trimming long new shoots with scissors back to a fork that has green beyond it, never shearing or pulling tips off with fingers, and never cutting into the bare inner part of a branch.',
+  spruce:
+    'Buds along the shoot: the wizard suggests shortening strong new shoots while soft, and cutting hardened ones back to a side bud in late summer or autumn.',
   fir: 'Firs bud less readily: the wizard suggests shortening only strong shoots, to a visible side bud, and leaving weak ones whole.',
   larch: 'Deciduous: the wizard lets long shoots grow out in spring and shortens them to a bud or spur in summer; there are no needles to count.',
   yew: 'Regrows from old wood: the wizard suggests trimming new shoots once they have grown out, in early summer.',
@@ -21,19 +23,29 @@ export function wizardSummary(rec: SpeciesRecord): string[] {
   const out: string[] = [];
   const makesCandles = rec.group === 'pine';
   if (!makesCandles) {
-    out.push(`This is not a pine: there are no candles and the wizard never suggests decandling. ${nonPine[techniqueOf(toWizardSpecies(rec, 1))] ?? ''}`.trim());
+    out.push(
+      `This is not a pine: there are no candles and the wizard never suggests decandling. ${nonPine[techniqueOf(toWizardSpecies(rec, 1))] ?? ''}`.trim(),
+    );
   } else if (t.flushHabit.value === 'double') {
-    out.push('Double flush: on a strong, established tree the wizard may suggest cutting the spring candles in early summer so a second, shorter flush follows. On a weak or newly repotted tree it says to let it grow instead.');
+    out.push(
+      'Double flush: on a strong, established tree the wizard may suggest cutting the spring candles in early summer so a second, shorter flush follows. On a weak or newly repotted tree it says to let it grow instead.',
+    );
   } else if (t.flushHabit.value === 'polycyclic') {
-    out.push('Several growth units a season (polycyclic): new shoots keep coming after the spring candle, so the wizard suggests shortening each as it extends and never removing a candle whole.');
+    out.push(
+      'Several growth units a season (polycyclic): new shoots keep coming after the spring candle, so the wizard suggests shortening each as it extends and never removing a candle whole.',
+    );
   } else {
-    out.push('Single flush: the spring candle is the whole season’s growth, so the wizard suggests pinching or shortening candles and never removing one whole.');
+    out.push(
+      'Single flush: the spring candle is the whole season’s growth, so the wizard suggests pinching or shortening candles and never removing one whole.',
+    );
   }
   if (makesCandles && t.shootHabit.value === 'multinodal') {
     out.push('Multinodal spring shoots carry more than one whorl of buds, so the wizard points out that a shortened candle can be cut back to an inner whorl.');
   }
   if (t.feedingNeedleResponse.value === 'strong') {
-    out.push('Feeding lengthens its needles strongly: for a tree in refinement the feeding plan holds back spring feeding until the new needles have hardened, then feeds through summer and autumn.');
+    out.push(
+      'Feeding lengthens its needles strongly: for a tree in refinement the feeding plan holds back spring feeding until the new needles have hardened, then feeds through summer and autumn.',
+    );
   } else if (t.feedingNeedleResponse.value === 'slight') {
     out.push('Feeding barely lengthens its needles: the feeding plan runs from spring through autumn.');
   } else {

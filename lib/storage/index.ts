@@ -5,7 +5,7 @@ import { S3Storage } from './s3';
 import type { Storage } from './types';
 
 export type { Storage } from './types';
-export { isStorageKey, newStorageKey } from './types';
+export { newStorageKey } from './types';
 
 const g = globalThis as unknown as { __cwStorage?: Storage };
 
@@ -18,13 +18,12 @@ export function storage(): Storage {
   return (g.__cwStorage ??=
     env.S3_URL && env.S3_BUCKET
       ? new S3Storage({
-          url: env.S3_URL, bucket: env.S3_BUCKET, region: env.S3_REGION, prefix: env.S3_PREFIX,
-          accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+          url: env.S3_URL,
+          bucket: env.S3_BUCKET,
+          region: env.S3_REGION,
+          prefix: env.S3_PREFIX,
+          accessKeyId: env.S3_ACCESS_KEY_ID,
+          secretAccessKey: env.S3_SECRET_ACCESS_KEY,
         })
       : new LocalDirStorage(env.UPLOADS_DIR));
-}
-
-/** For tests: use another storage (e.g. a temporary directory). */
-export function setStorage(s: Storage) {
-  g.__cwStorage = s;
 }

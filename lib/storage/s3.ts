@@ -51,7 +51,12 @@ export class S3Storage implements Storage {
       if (!out.Body) return null;
       return Buffer.from(await out.Body.transformToByteArray());
     } catch (e) {
-      if (e instanceof NoSuchKey || (e as { name?: string }).name === 'NoSuchKey' || (e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return null;
+      if (
+        e instanceof NoSuchKey ||
+        (e as { name?: string }).name === 'NoSuchKey' ||
+        (e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404
+      )
+        return null;
       throw e;
     }
   }

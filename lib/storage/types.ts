@@ -3,10 +3,8 @@ import { randomBytes } from 'node:crypto';
 // Stored objects are named by the server only: `<folder>/<random>.<ext>`. A user's file name
 // never becomes part of a key or a path.
 
-export const storageFolders = ['photos', 'thumbs'] as const;
-export type StorageFolder = (typeof storageFolders)[number];
-export const storageExts = ['jpg', 'png', 'webp'] as const;
-export type StorageExt = (typeof storageExts)[number];
+export type StorageFolder = 'photos' | 'thumbs';
+export type StorageExt = 'jpg' | 'png' | 'webp';
 
 const keyPattern = /^(photos|thumbs)\/[A-Za-z0-9_-]{22}\.(jpg|png|webp)$/;
 

@@ -12,7 +12,7 @@ const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
 const num = (v: string | undefined) => (v === undefined || v.trim() === '' ? undefined : Number(v));
 
 /** A pot the wizard accepts, or nothing. */
-export function wizardContainer(shape: unknown, lengthCm: number | null | undefined, widthCm: number | null | undefined): ContainerInput | undefined {
+function wizardContainer(shape: unknown, lengthCm: number | null | undefined, widthCm: number | null | undefined): ContainerInput | undefined {
   if (typeof shape !== 'string' || !(containerShapes as readonly string[]).includes(shape)) return undefined;
   const c = { shape: shape as ContainerShape, lengthCm, ...(shape !== 'round' && widthCm != null ? { widthCm } : {}) };
   const r = containerSchema.safeParse(c);
@@ -33,9 +33,15 @@ export function prefillFromQuery(q: Search, known: Set<string>): AskAnswers {
 /** A member's tree as the wizard's first question offers it. */
 export function treeOption(
   t: {
-    id: string; name: string; speciesSlug: string; speciesName: string | null;
-    containerShape: ContainerShape | null; containerLengthCm: number | null; containerWidthCm: number | null;
-    collectedFromWild: boolean; collectedOn: string | null;
+    id: string;
+    name: string;
+    speciesSlug: string;
+    speciesName: string | null;
+    containerShape: ContainerShape | null;
+    containerLengthCm: number | null;
+    containerWidthCm: number | null;
+    collectedFromWild: boolean;
+    collectedOn: string | null;
   },
   known: Set<string>,
   today: string,

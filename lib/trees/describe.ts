@@ -28,15 +28,18 @@ export function isRecentlyCollected(t: { collectedFromWild: boolean; collectedOn
  * (`shape`, `lengthCm`, `widthCm`), `collected` (`1` when collected from the wild within the
  * last two years, the wizard's recently-collected question) and `collectedOn` when known.
  */
-export function askParamsFor(t: {
-  id: string;
-  speciesSlug: string;
-  containerShape: ContainerShape | null;
-  containerLengthCm: number | null;
-  containerWidthCm: number | null;
-  collectedFromWild: boolean;
-  collectedOn: string | null;
-}, today: string): URLSearchParams {
+export function askParamsFor(
+  t: {
+    id: string;
+    speciesSlug: string;
+    containerShape: ContainerShape | null;
+    containerLengthCm: number | null;
+    containerWidthCm: number | null;
+    collectedFromWild: boolean;
+    collectedOn: string | null;
+  },
+  today: string,
+): URLSearchParams {
   const p = new URLSearchParams({ tree: t.id, species: t.speciesSlug });
   if (t.containerShape && t.containerLengthCm != null) {
     p.set('shape', t.containerShape);

@@ -9,10 +9,10 @@ import type { StorageExt } from '@/lib/storage/types';
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
 export const MAX_PHOTOS_PER_ITEM = 6;
 /** Decoding cost grows with pixels, not bytes: a tiny file can claim a huge canvas. */
-export const MAX_INPUT_PIXELS = 50_000_000;
+const MAX_INPUT_PIXELS = 50_000_000;
 /** Longest edge kept after re-encoding, and of the list thumbnail. */
 export const MAX_EDGE_PX = 2560;
-export const THUMB_EDGE_PX = 400;
+const THUMB_EDGE_PX = 400;
 
 const accepted = {
   'image/jpeg': 'jpg',
@@ -20,7 +20,6 @@ const accepted = {
   'image/webp': 'webp',
 } as const satisfies Record<string, StorageExt>;
 export type AcceptedMime = keyof typeof accepted;
-export const acceptedMimes = Object.keys(accepted) as AcceptedMime[];
 
 export interface ProcessedPhoto {
   mime: AcceptedMime;
@@ -68,7 +67,8 @@ export async function processPhoto(buf: Buffer): Promise<ProcessedPhoto> {
     // dropped: sharp writes no input metadata unless asked to.
     const base = () => sharp(buf, { limitInputPixels: MAX_INPUT_PIXELS, failOn: 'error' }).rotate();
     const resized = base().resize({ width: MAX_EDGE_PX, height: MAX_EDGE_PX, fit: 'inside', withoutEnlargement: true });
-    const encoded = ext === 'jpg' ? resized.jpeg({ quality: 85, mozjpeg: true }) : ext === 'png' ? resized.png({ compressionLevel: 9 }) : resized.webp({ quality: 85 });
+    const encoded =
+      ext === 'jpg' ? resized.jpeg({ quality: 85, mozjpeg: true }) : ext === 'png' ? resized.png({ compressionLevel: 9 }) : resized.webp({ quality: 85 });
     const { data, info } = await encoded.toBuffer({ resolveWithObject: true });
     const thumb = await base()
       .resize({ width: THUMB_EDGE_PX, height: THUMB_EDGE_PX, fit: 'inside', withoutEnlargement: true })

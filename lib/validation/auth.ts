@@ -1,13 +1,13 @@
 import { z } from 'zod';
 import { isCommonPassword } from '@/lib/auth/common-passwords';
 
-export const emailSchema = z
+const emailSchema = z
   .string({ error: 'Enter your e-mail address.' })
   .trim()
   .toLowerCase()
   .pipe(z.email({ error: 'Enter a valid e-mail address.' }).max(254));
 
-export const passwordSchema = z
+const passwordSchema = z
   .string({ error: 'Enter a password.' })
   .min(8, { error: 'Use at least 8 characters.' })
   .max(128, { error: 'Use at most 128 characters.' })
@@ -25,7 +25,7 @@ export const signInSchema = z.object({
   password: z.string().min(1).max(128),
 });
 
-export const roleSchema = z.enum(['member', 'editor', 'librarian', 'admin']);
+const roleSchema = z.enum(['member', 'editor', 'librarian', 'admin']);
 
 export const userPatchSchema = z
   .object({ role: roleSchema.optional(), disabled: z.boolean().optional() })

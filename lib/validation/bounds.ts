@@ -4,8 +4,8 @@ import { z } from 'zod';
 // 0000 dates, years beyond its range and integers past 32 bits with an error, which was a 500:
 // here they are a 4xx naming the field. The bounds are the product's, not the database's: no
 // tree, meeting or answer in a club record is dated before 1800 or after 2200.
-export const MIN_YEAR = 1800;
-export const MAX_YEAR = 2200;
+const MIN_YEAR = 1800;
+const MAX_YEAR = 2200;
 /** The largest PostgreSQL `integer` (a signed 32-bit value). */
 export const INT4_MAX = 2_147_483_647;
 
@@ -24,7 +24,11 @@ export function boundedIsoDateTime(message = 'Not a timestamp.') {
 
 /** A positive whole number that fits a PostgreSQL integer column. */
 export function positiveInt4() {
-  return z.number().int().min(1).max(INT4_MAX, { error: `At most ${INT4_MAX}.` });
+  return z
+    .number()
+    .int()
+    .min(1)
+    .max(INT4_MAX, { error: `At most ${INT4_MAX}.` });
 }
 
 /** A Date read from a cursor or query: finite and inside the product's years. */

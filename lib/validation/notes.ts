@@ -4,12 +4,12 @@ import { markdownProblem } from '@/lib/markdown/limits';
 
 // Meeting notes: one schema for the editor form and for POST/PATCH /api/notes.
 
-export const noteStatuses = ['draft', 'published'] as const;
+const noteStatuses = ['draft', 'published'] as const;
 export type NoteStatus = (typeof noteStatuses)[number];
 
-export const MAX_NOTE_BODY = 100_000;
+const MAX_NOTE_BODY = 100_000;
 
-export const noteFieldsSchema = z.object({
+const noteFieldsSchema = z.object({
   title: z.string().trim().min(1, { error: 'Give the note a title.' }).max(160, { error: 'Keep the title under 160 characters.' }),
   meetingDate: boundedIsoDate('Give the meeting date, like 2027-03-14.'),
   body: z
@@ -37,7 +37,10 @@ export const noteListQuerySchema = z.object({
   status: z.enum(noteStatuses).optional(),
 });
 
-export const noteSlugSchema = z.string().regex(/^\d{4}-\d{2}-\d{2}(-[a-z0-9]+)*$/).max(120);
+export const noteSlugSchema = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}(-[a-z0-9]+)*$/)
+  .max(120);
 
 export const notePreviewSchema = z.object({ body: noteFieldsSchema.shape.body });
 

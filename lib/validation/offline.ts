@@ -6,9 +6,7 @@ import { saveAnswerSchema } from './wizard';
 // save safe to retry. Shared by the offline queue (client) and POST /api/answers (server).
 
 /** Letters, digits, `-` and `_`: a UUID fits, and so does any key a client makes from random bytes. */
-export const idempotencyKeySchema = z
-  .string()
-  .regex(/^[A-Za-z0-9_-]{16,100}$/, { error: 'Send an Idempotency-Key of 16 to 100 letters, digits, - or _.' });
+export const idempotencyKeySchema = z.string().regex(/^[A-Za-z0-9_-]{16,100}$/, { error: 'Send an Idempotency-Key of 16 to 100 letters, digits, - or _.' });
 
 export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
 
@@ -16,7 +14,7 @@ export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
  * The phone's own answer, kept beside the server's when they differ. Only the fields the answer
  * screen compares are checked; the rest of the result is kept as sent, within the body cap.
  */
-export const phoneResultSchema = z.looseObject({
+const phoneResultSchema = z.looseObject({
   action: z.enum(actions),
   headline: z.string().max(300),
   engineVersion: z.string().max(40),

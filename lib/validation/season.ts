@@ -10,9 +10,12 @@ export const seasonDateSchema = z
 
 // The coldest and hottest air temperatures ever measured lie inside −90…+60 °C.
 const temperature = (name: string) =>
-  z.number({ error: `Give ${name} in °C as a number.` }).min(-90, { error: `${name} below −90 °C is not a real reading.` }).max(60, { error: `${name} above 60 °C is not a real reading.` });
+  z
+    .number({ error: `Give ${name} in °C as a number.` })
+    .min(-90, { error: `${name} below −90 °C is not a real reading.` })
+    .max(60, { error: `${name} above 60 °C is not a real reading.` });
 
-export const dayTempsSchema = z
+const dayTempsSchema = z
   .object({ date: seasonDateSchema, tmin: temperature('tmin'), tmax: temperature('tmax') })
   .refine((d) => d.tmin <= d.tmax, { error: 'tmin is above tmax on this day.', path: ['tmin'] });
 
@@ -32,5 +35,3 @@ export const degreeDaysBodySchema = z
       else if (cur < prev) ctx.addIssue({ code: 'custom', message: `${cur} comes after ${prev}: give the days in date order.`, path: ['days', i, 'date'] });
     }
   });
-
-export type DegreeDaysBody = z.infer<typeof degreeDaysBodySchema>;

@@ -11,13 +11,24 @@ export type ProvenanceKind = (typeof provenanceKinds)[number];
 // The groups the wizard models techniques for. `redwood` holds Cryptomeria and Taxodium (awl or
 // linear foliage on green shoots), `podocarp` the southern yews.
 export const speciesGroups = [
-  'pine', 'larch', 'spruce', 'fir', 'douglas-fir', 'hemlock', 'cedar', 'juniper', 'cypress', 'redwood', 'yew', 'podocarp', 'other',
+  'pine',
+  'larch',
+  'spruce',
+  'fir',
+  'douglas-fir',
+  'hemlock',
+  'cedar',
+  'juniper',
+  'cypress',
+  'redwood',
+  'yew',
+  'podocarp',
+  'other',
 ] as const;
 // The trade trait: one flush a season, a second flush after the spring candles are cut, or several
 // growth units in one season on their own (polycyclic). The botanical shoot habit sits beside it.
 export const flushHabits = ['single', 'double', 'polycyclic'] as const;
 export type FlushHabit = (typeof flushHabits)[number];
-export type SpeciesGroup = (typeof speciesGroups)[number];
 export const shootHabits = ['uninodal', 'multinodal', 'not-applicable'] as const;
 export const levels = ['low', 'moderate', 'high'] as const;
 export const needleResponses = ['slight', 'moderate', 'strong'] as const;
@@ -26,7 +37,7 @@ export const needleResponses = ['slight', 'moderate', 'strong'] as const;
  * A trait value with where it came from. A draft may hold a `published` value whose citation is
  * still to be found; publishing checks `missingCitations` (the editorial write and the species files).
  */
-export function trait<T extends z.ZodType>(value: T) {
+function trait<T extends z.ZodType>(value: T) {
   return z.object({
     value,
     provenance: z.enum(provenanceKinds, { error: 'Say where this value comes from: published, common-practice or from-memory.' }),
@@ -35,7 +46,7 @@ export function trait<T extends z.ZodType>(value: T) {
   });
 }
 
-export const CITATION_NEEDED = 'A published value needs its citation before the species is published.';
+const CITATION_NEEDED = 'A published value needs its citation before the species is published.';
 
 /** Field paths (`traits.<name>.citation`) of published values that have no citation yet. */
 export function missingCitations(rec: { traits: Record<string, { provenance: ProvenanceKind; citation?: string }> }): Record<string, string[]> {
@@ -58,11 +69,11 @@ export const mmRange = z
   .object({ min: z.number().min(0.1).max(500), max: z.number().min(0.1).max(500) })
   .refine((r) => r.min <= r.max, { error: 'The minimum must not exceed the maximum.', path: ['max'] });
 
-export const zoneRange = z
+const zoneRange = z
   .object({ min: z.number().int().min(1).max(13), max: z.number().int().min(1).max(13) })
   .refine((r) => r.min <= r.max, { error: 'The minimum zone must not exceed the maximum.', path: ['max'] });
 
-export const speciesTraitsSchema = z.object({
+const speciesTraitsSchema = z.object({
   flushHabit: trait(z.enum(flushHabits)),
   shootHabit: trait(z.enum(shootHabits)),
   needlesPerFascicle: trait(z.number().int().min(1).max(8).nullable()),
@@ -74,7 +85,7 @@ export const speciesTraitsSchema = z.object({
   nativeRange: trait(z.string().trim().min(1).max(600)),
 });
 
-export const cautionSchema = z.object({
+const cautionSchema = z.object({
   text: z.string().trim().min(1).max(600),
   provenance: z.enum(provenanceKinds),
   citation: z.string().trim().max(400).optional(),
@@ -138,7 +149,7 @@ export function toWizardSpecies(rec: SpeciesRecord, revision: number): WizardSpe
 
 // ---- Editorial writes and queries (POST/PATCH bodies, list query, import) ----
 
-export const MAX_CARE_NOTES = 40_000;
+const MAX_CARE_NOTES = 40_000;
 
 const careNotes = z
   .string()
@@ -173,11 +184,7 @@ export const speciesRevertSchema = z.object({
   publish: z.boolean().default(true),
 });
 
-/** The editor form: the record plus the body, summary and intent, with strings for lists. */
-export const speciesFormSchema = speciesCreateSchema;
-
-const optionalEnum = <T extends readonly [string, ...string[]]>(values: T) =>
-  z.preprocess((v) => (v === '' ? undefined : v), z.enum(values).optional());
+const optionalEnum = <T extends readonly [string, ...string[]]>(values: T) => z.preprocess((v) => (v === '' ? undefined : v), z.enum(values).optional());
 const optionalMm = z.preprocess((v) => (v === '' || v == null ? undefined : v), z.coerce.number().min(0.1).max(500).optional());
 
 /** GET /api/species query. */

@@ -77,9 +77,7 @@ export const treeInputSchema = treeFieldsSchema.superRefine(crossCheck);
 export type TreeInput = z.infer<typeof treeInputSchema>;
 
 /** PATCH: any subset of the fields; the merged tree is checked again with `treeInputSchema`. */
-export const treePatchSchema = treeFieldsSchema
-  .partial()
-  .refine((p) => Object.keys(p).length > 0, { error: 'Change at least one field.' });
+export const treePatchSchema = treeFieldsSchema.partial().refine((p) => Object.keys(p).length > 0, { error: 'Change at least one field.' });
 export type TreePatch = z.infer<typeof treePatchSchema>;
 
 export const treeIdSchema = idSchema('tree');

@@ -1,7 +1,5 @@
 import { z } from 'zod';
-import {
-  branchingLevels, candleStrengths, containerShapes, hemispheres, healthLevels, positions, shootStates, actions,
-} from '@/lib/wizard/types';
+import { branchingLevels, candleStrengths, containerShapes, hemispheres, healthLevels, positions, shootStates, actions } from '@/lib/wizard/types';
 import { parseIsoDate } from '@/lib/wizard/season';
 import { slugSchema } from './species';
 import { boundedIsoDate } from './bounds';
@@ -18,11 +16,15 @@ export const containerSchema = z
     path: ['widthCm'],
   });
 
-export const latitudeSchema = z.number({ error: 'Give the latitude in degrees.' }).min(-90, { error: 'A latitude is from -90 to 90 degrees.' }).max(90, { error: 'A latitude is from -90 to 90 degrees.' });
+const latitudeSchema = z
+  .number({ error: 'Give the latitude in degrees.' })
+  .min(-90, { error: 'A latitude is from -90 to 90 degrees.' })
+  .max(90, { error: 'A latitude is from -90 to 90 degrees.' });
 
 // The same years as every other date in the record (a tree's, a note's), and a real calendar day.
-export const isoDateSchema = boundedIsoDate('Give a real date as YYYY-MM-DD.')
-  .refine((s) => parseIsoDate(s) !== null, { error: 'Give a real date as YYYY-MM-DD.' });
+const isoDateSchema = boundedIsoDate('Give a real date as YYYY-MM-DD.').refine((s) => parseIsoDate(s) !== null, {
+  error: 'Give a real date as YYYY-MM-DD.',
+});
 
 export const evaluateBodySchema = z
   .object({
@@ -55,7 +57,7 @@ export const evaluateBodySchema = z
   // A hemisphere and a latitude that disagree are refused, never silently flipped.
   .superRefine((b, ctx) => {
     if (!b.hemisphere || b.latitude === undefined || b.latitude === 0) return;
-    if ((b.latitude < 0) === (b.hemisphere === 'south')) return;
+    if (b.latitude < 0 === (b.hemisphere === 'south')) return;
     const message = `The ${b.hemisphere}ern hemisphere and latitude ${b.latitude}° disagree: southern latitudes are negative.`;
     ctx.addIssue({ code: 'custom', path: ['hemisphere'], message });
     ctx.addIssue({ code: 'custom', path: ['latitude'], message });
@@ -68,7 +70,7 @@ export function isRecovering(a: { health?: string; recentlyCollected?: boolean }
   return a.health === 'weak' || a.recentlyCollected === true;
 }
 
-export const visibilities = ['private', 'club'] as const;
+const visibilities = ['private', 'club'] as const;
 
 export const saveAnswerSchema = z.intersection(
   evaluateBodySchema,
@@ -78,8 +80,6 @@ export const saveAnswerSchema = z.intersection(
     visibility: z.enum(visibilities).optional(),
   }),
 );
-
-export type SaveAnswerBody = z.infer<typeof saveAnswerSchema>;
 
 export const patchAnswerSchema = z
   .object({

@@ -1,8 +1,17 @@
 import { containerSchema, evaluateBodySchema, isRecovering, type EvaluateBody } from '@/lib/validation/wizard';
 import { slugSchema } from '@/lib/validation/species';
 import {
-  branchingLevels, healthLevels, positions, shootStates,
-  type Branching, type CandleStrength, type ContainerInput, type Health, type Hemisphere, type Position, type ShootState,
+  branchingLevels,
+  healthLevels,
+  positions,
+  shootStates,
+  type Branching,
+  type CandleStrength,
+  type ContainerInput,
+  type Health,
+  type Hemisphere,
+  type Position,
+  type ShootState,
 } from './types';
 
 // The /ask questions, their order and when each one is asked. Pure; the machine and the page share it.
@@ -59,11 +68,16 @@ export { isRecovering };
 /** A question the answers so far make irrelevant is skipped. */
 export function isRelevant(step: AskStep, a: AskAnswers, f: Flow = {}): boolean {
   switch (step) {
-    case 'tree': return !!f.hasTrees;
-    case 'species': return !(a.tree && a.tree !== NOT_MINE && a.treeSpecies);
-    case 'branching': return !isRecovering(a);
-    case 'position': return !isRecovering(a) && (a.branching === undefined || a.branching === 'tertiary');
-    default: return true;
+    case 'tree':
+      return !!f.hasTrees;
+    case 'species':
+      return !(a.tree && a.tree !== NOT_MINE && a.treeSpecies);
+    case 'branching':
+      return !isRecovering(a);
+    case 'position':
+      return !isRecovering(a) && (a.branching === undefined || a.branching === 'tertiary');
+    default:
+      return true;
   }
 }
 
@@ -80,7 +94,7 @@ export function asksCandleStrength(a: AskAnswers): boolean {
 const oneOf = <T extends string>(list: readonly T[], v: unknown): v is T => typeof v === 'string' && (list as readonly string[]).includes(v);
 
 /** Why the pot cannot be used yet, in the words of the field to fill; null when it can (or there is none). */
-export function containerProblem(c: ContainerInput | undefined): string | null {
+function containerProblem(c: ContainerInput | undefined): string | null {
   if (!c) return null;
   if (typeof c.lengthCm !== 'number' || !Number.isFinite(c.lengthCm)) return c.shape === 'round' ? 'Give the pot’s diameter' : 'Give the pot’s length';
   if (c.shape !== 'round' && (typeof c.widthCm !== 'number' || !Number.isFinite(c.widthCm))) return 'Give the pot’s width';
@@ -91,12 +105,18 @@ export function containerProblem(c: ContainerInput | undefined): string | null {
 /** Why Next is disabled on this step, or null when it is not. The last step is checked with the server's own schema. */
 export function disabledReason(step: AskStep, a: AskAnswers): string | null {
   switch (step) {
-    case 'tree': return a.tree ? null : 'Pick one of your trees, or “Not one of mine”';
-    case 'species': return slugSchema.safeParse(a.species).success ? null : 'Choose the species from the list';
-    case 'health': return oneOf(healthLevels, a.health) ? null : 'Say how the tree is doing';
-    case 'shoot': return oneOf(shootStates, a.shoot) ? null : 'Pick what the shoot looks like';
-    case 'branching': return oneOf(branchingLevels, a.branching) ? null : 'Pick how far the branching goes';
-    case 'position': return oneOf(positions, a.position) ? null : 'Pick where the shoot is against the outline';
+    case 'tree':
+      return a.tree ? null : 'Pick one of your trees, or “Not one of mine”';
+    case 'species':
+      return slugSchema.safeParse(a.species).success ? null : 'Choose the species from the list';
+    case 'health':
+      return oneOf(healthLevels, a.health) ? null : 'Say how the tree is doing';
+    case 'shoot':
+      return oneOf(shootStates, a.shoot) ? null : 'Pick what the shoot looks like';
+    case 'branching':
+      return oneOf(branchingLevels, a.branching) ? null : 'Pick how far the branching goes';
+    case 'position':
+      return oneOf(positions, a.position) ? null : 'Pick where the shoot is against the outline';
     case 'when': {
       if (!a.date) return 'Pick a date';
       const pot = containerProblem(a.container);
@@ -104,7 +124,8 @@ export function disabledReason(step: AskStep, a: AskAnswers): string | null {
       const r = evaluateBodySchema.safeParse(toEvaluateBody(a));
       return r.success ? null : r.error.issues[0].message;
     }
-    case 'answer': return 'Answer every question first';
+    case 'answer':
+      return 'Answer every question first';
   }
 }
 

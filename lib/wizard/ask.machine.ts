@@ -2,8 +2,21 @@ import { assign, fromPromise, setup } from 'xstate';
 import type { EvaluateBody } from '@/lib/validation/wizard';
 import type { WizardResult } from './types';
 import {
-  answersForTree, canReach, resumedAnswers, firstOpenStep, firstStep, isAnswered, isRelevant, nextStep, NOT_MINE, prevStep, toEvaluateBody,
-  type AskAnswers, type AskStep, type Flow, type TreeOption,
+  answersForTree,
+  canReach,
+  resumedAnswers,
+  firstOpenStep,
+  firstStep,
+  isAnswered,
+  isRelevant,
+  nextStep,
+  NOT_MINE,
+  prevStep,
+  toEvaluateBody,
+  type AskAnswers,
+  type AskStep,
+  type Flow,
+  type TreeOption,
 } from './ask-steps';
 import type { StoredRun } from './ask-resume';
 
@@ -94,7 +107,10 @@ export const askMachine = setup({
     nextIsAnswer: ({ context }) => isAnswered(context.step, context.answers) && nextStep(context.step, context.answers, flowOf(context)) === 'answer',
     gotoAnswer: ({ context, event }) => event.type === 'GOTO' && event.step === 'answer' && firstOpenStep(context.answers, flowOf(context)) === 'answer',
     gotoQuestion: ({ context, event }) =>
-      event.type === 'GOTO' && event.step !== 'answer' && isRelevant(event.step, context.answers, flowOf(context)) && canReach(event.step, context.answers, flowOf(context)),
+      event.type === 'GOTO' &&
+      event.step !== 'answer' &&
+      isRelevant(event.step, context.answers, flowOf(context)) &&
+      canReach(event.step, context.answers, flowOf(context)),
     startsComplete: ({ context }) => context.step === 'answer',
   },
   actions: {
@@ -104,7 +120,7 @@ export const askMachine = setup({
     }),
     pickTree: assign(({ context, event }) => {
       if (event.type !== 'PICK_TREE') return {};
-      const tree = event.treeId ? context.trees.find((t) => t.id === event.treeId) ?? null : null;
+      const tree = event.treeId ? (context.trees.find((t) => t.id === event.treeId) ?? null) : null;
       if (event.treeId && !tree) return {};
       if (context.answers.tree === (tree?.id ?? NOT_MINE)) return {};
       return { answers: answersForTree(context.answers, tree), treeId: tree?.id, error: null };
@@ -133,8 +149,16 @@ export const askMachine = setup({
     const answers = input.answers ?? (input.today ? { date: input.today } : {});
     const step = openingStep(answers, { hasTrees: trees.length > 0 }, input.step);
     return {
-      step, answers, treeId: input.treeId, trees, today: input.today, resume: input.resume ?? null,
-      result: null, error: null, saved: null, saveError: null,
+      step,
+      answers,
+      treeId: input.treeId,
+      trees,
+      today: input.today,
+      resume: input.resume ?? null,
+      result: null,
+      error: null,
+      saved: null,
+      saveError: null,
     };
   },
   initial: 'routing',

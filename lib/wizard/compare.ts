@@ -3,7 +3,7 @@ import type { Reason, WizardResult } from './types';
 
 // Re-running a stored answer: what differs between the stored result and today's, and why.
 
-export interface FieldChange {
+interface FieldChange {
   field: string;
   label: string;
   before: unknown;
@@ -46,7 +46,11 @@ const fields: { field: string; label: string; get: (r: Stored) => unknown }[] = 
 function canonical(v: unknown): unknown {
   if (Array.isArray(v)) return v.map(canonical);
   if (v && typeof v === 'object') {
-    return Object.fromEntries(Object.keys(v as object).sort().map((k) => [k, canonical((v as Record<string, unknown>)[k])]));
+    return Object.fromEntries(
+      Object.keys(v as object)
+        .sort()
+        .map((k) => [k, canonical((v as Record<string, unknown>)[k])]),
+    );
   }
   return v ?? null;
 }
@@ -78,6 +82,12 @@ export function compareResults(before: Stored, after: Stored): ResultComparison 
 
   return {
     same: !changes.length && !rulesAdded.length && !rulesRemoved.length && !rulesReworded.length,
-    engineChanged, speciesChanged, changes, rulesAdded, rulesRemoved, rulesReworded, why,
+    engineChanged,
+    speciesChanged,
+    changes,
+    rulesAdded,
+    rulesRemoved,
+    rulesReworded,
+    why,
   };
 }

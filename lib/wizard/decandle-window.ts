@@ -18,17 +18,17 @@ import type { Hemisphere } from './types';
 //    "spring shoot growth is largely done" in a temperate garden.
 
 export const TROPIC_LATITUDE = 23.44;
-export const SECOND_FLUSH_DAYS = 95;
-export const WINDOW_DAYS = 35;
-export const EARLIEST_OPEN_DAY = 145;
+const SECOND_FLUSH_DAYS = 95;
+const WINDOW_DAYS = 35;
+const EARLIEST_OPEN_DAY = 145;
 export const DECANDLE_MIN_DEGREE_DAYS = 450;
-export const MAX_CLUB_OFFSET_DAYS = 30;
+const MAX_CLUB_OFFSET_DAYS = 30;
 
-export function seasonEndDay(absLatitude: number): number {
+function seasonEndDay(absLatitude: number): number {
   return Math.round(340 - 3 * Math.max(0, absLatitude - 25));
 }
 
-export interface DecandleWindow {
+interface DecandleWindow {
   /** Day of the (hemisphere-shifted) year the window opens and closes, or null in the tropics / none. */
   openDay: number;
   closeDay: number;
@@ -38,7 +38,7 @@ export interface DecandleWindow {
  * The window as days of the grower's own year (in the south, day 1 is 1 July, so the same numbers
  * mean the same point of the season). null when the season is too short for a second flush.
  */
-export function decandleWindow(latitude: number, clubOffsetDays = 0): DecandleWindow | null {
+function decandleWindow(latitude: number, clubOffsetDays = 0): DecandleWindow | null {
   const abs = Math.abs(latitude);
   const offset = Math.max(-MAX_CLUB_OFFSET_DAYS, Math.min(MAX_CLUB_OFFSET_DAYS, Math.round(clubOffsetDays)));
   const closeDay = seasonEndDay(abs) - SECOND_FLUSH_DAYS + offset;
@@ -47,7 +47,7 @@ export function decandleWindow(latitude: number, clubOffsetDays = 0): DecandleWi
 }
 
 /** Day of the year, counted from 1 January in the north and from 1 July in the south. */
-export function seasonalDayOfYear(date: Date, hemisphere: Hemisphere): number {
+function seasonalDayOfYear(date: Date, hemisphere: Hemisphere): number {
   const y = date.getUTCFullYear();
   if (hemisphere === 'north') return Math.floor((date.getTime() - Date.UTC(y, 0, 1, 12)) / 86_400_000) + 1;
   const start = date.getUTCMonth() >= 6 ? Date.UTC(y, 6, 1, 12) : Date.UTC(y - 1, 6, 1, 12);
@@ -63,10 +63,4 @@ export function decandleWindowPosition(date: Date, hemisphere: Hemisphere, latit
   const day = seasonalDayOfYear(date, hemisphere);
   if (day < w.openDay) return 'before';
   return day <= w.closeDay ? 'open' : 'after';
-}
-
-/** A day of the grower's year as a date in the given year (north) or season starting that July (south). */
-export function dayToIso(day: number, year: number, hemisphere: Hemisphere): string {
-  const start = hemisphere === 'north' ? Date.UTC(year, 0, 1, 12) : Date.UTC(year, 6, 1, 12);
-  return new Date(start + (day - 1) * 86_400_000).toISOString().slice(0, 10);
 }

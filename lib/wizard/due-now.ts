@@ -7,7 +7,7 @@ import type { Hemisphere, Season, ShootState, Stage } from './types';
  * The shoot states a pine may show at this point of the season, earliest first. Nothing here is
  * an observation: the tree page uses it to say what to look for, never what to do.
  */
-export function likelyShootStates(s: SeasonInfo): ShootState[] {
+function likelyShootStates(s: SeasonInfo): ShootState[] {
   if (s.season === 'winter') return ['dormant-bud'];
   if (s.season === 'spring') {
     if (s.monthOfSeason === 1) return ['dormant-bud', 'candle-extending'];
@@ -29,7 +29,7 @@ export interface DueNowInput {
   latitude?: number;
 }
 
-export interface LookFor {
+interface LookFor {
   shoot: ShootState;
   /** The shoot state in words. */
   label: string;

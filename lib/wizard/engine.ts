@@ -42,13 +42,17 @@ export function isOutOfSeason(shoot: ShootState, s: SeasonInfo, tropics = false)
 }
 
 export class WizardInputError extends Error {
-  constructor(readonly field: string, message: string, readonly fields: Record<string, string[]> = { [field]: [message] }) {
+  constructor(
+    readonly field: string,
+    message: string,
+    readonly fields: Record<string, string[]> = { [field]: [message] },
+  ) {
     super(message);
   }
 }
 
 /** Fraction of the candle to leave, by how strong it is against the others. null: leave it whole. */
-export function candleKeepFor(technique: Technique, strength: CandleStrength): { min: number; max: number } | null {
+function candleKeepFor(technique: Technique, strength: CandleStrength): { min: number; max: number } | null {
   if (strength === 'weak') return null;
   if (technique === 'pine-five') return strength === 'strong' ? { min: 0.5, max: 0.67 } : { min: 0.67, max: 0.75 };
   // Published: remove about half to two-thirds of a candle, i.e. keep a third to a half.
@@ -56,7 +60,7 @@ export function candleKeepFor(technique: Technique, strength: CandleStrength): {
 }
 
 /** Needle bundles to leave below a cut on a hardened pine shoot: strong shoots are cut harder. */
-export function bundlesToKeep(strength: CandleStrength): number {
+function bundlesToKeep(strength: CandleStrength): number {
   return strength === 'strong' ? 2 : strength === 'average' ? 3 : 4;
 }
 
@@ -82,7 +86,14 @@ interface Ctx {
 }
 
 const make = (action: Action, rules: RuleId[], watch: string[], howTo: string[] = [], extra: Partial<Decision> = {}): Decision => ({
-  action, candleKeep: null, bundles: null, rules, watch, howTo, cautions: [], ...extra,
+  action,
+  candleKeep: null,
+  bundles: null,
+  rules,
+  watch,
+  howTo,
+  cautions: [],
+  ...extra,
 });
 
 /** Late summer, autumn, or (in the tropics) whenever growth has hardened: the time for autumn work. */
@@ -109,11 +120,16 @@ function recovery(c: Ctx): Decision {
     rules.push('season.winter-dormant');
     return make('wait', rules, ['Watch for the buds to swell in spring, then let them grow.']);
   }
-  return make('let-grow', rules, ['Look for new roots at the drainage holes and firm, well-coloured new growth; once the tree is strong, ask again.'], [
-    'Leave every shoot on the tree; do not cut, pinch or pull anything.',
-    'Keep the tree out of strong wind and the hottest afternoon sun while it rebuilds roots.',
-    'Water when the surface of the soil starts to dry; do not keep it soaking wet.',
-  ]);
+  return make(
+    'let-grow',
+    rules,
+    ['Look for new roots at the drainage holes and firm, well-coloured new growth; once the tree is strong, ask again.'],
+    [
+      'Leave every shoot on the tree; do not cut, pinch or pull anything.',
+      'Keep the tree out of strong wind and the hottest afternoon sun while it rebuilds roots.',
+      'Water when the surface of the soil starts to dry; do not keep it soaking wet.',
+    ],
+  );
 }
 
 function development(c: Ctx): Decision {
@@ -127,10 +143,12 @@ function development(c: Ctx): Decision {
   }
   if (c.input.shoot !== 'needles-hardened') {
     rules.push('develop.let-extend', 'develop.no-early-prune');
-    return make('let-grow', rules, ['Once this year’s growth has hardened and back buds show on older wood, the long shoot can be cut back to them.'], [
-      'Leave the new shoot to lengthen fully; do not pinch it.',
-      'Feed well so the foliage grows strong.',
-    ]);
+    return make(
+      'let-grow',
+      rules,
+      ['Once this year’s growth has hardened and back buds show on older wood, the long shoot can be cut back to them.'],
+      ['Leave the new shoot to lengthen fully; do not pinch it.', 'Feed well so the foliage grows strong.'],
+    );
   }
   if (!c.input.backBuds || c.s.season === 'spring') {
     rules.push('develop.wait-for-back-buds', 'develop.let-extend');
@@ -144,7 +162,10 @@ function development(c: Ctx): Decision {
         'Never cut into wood that has no needles left: a pine does not regrow from bare wood.',
       ]
     : c.technique === 'scale-foliage'
-      ? ['With sharp scissors, cut the long shoot back to a fork or side shoot near the new buds, keeping green foliage beyond the cut.', 'Never cut back into the bare inner part of the branch.']
+      ? [
+          'With sharp scissors, cut the long shoot back to a fork or side shoot near the new buds, keeping green foliage beyond the cut.',
+          'Never cut back into the bare inner part of the branch.',
+        ]
       : [
           'Find the new buds or side shoots on the older part of the branch.',
           'With sharp scissors, cut just above the outermost one you want to keep; leave no stub.',
@@ -218,20 +239,29 @@ function pineRefinement(c: Ctx): Decision {
       rules.push('flush.double-average-strongest-only');
       cautions.push(CAUTIONS.strongestOnly);
     }
-    return make('decandle', rules, ['New buds should appear at the cut ends within three to four weeks; in autumn reduce them to two per tip.'], [
-      'Work on a dry day, strongest areas last: cut the candles of the weakest areas first, those of the strongest areas about a week later.',
-      'Hold the candle and cut it with sharp scissors just above last year’s needles, leaving a short stub on the weak candles and almost none on the strongest.',
-      'Leave every older needle in place: the tree needs them to push the second flush.',
-      'Keep watering and sun as usual; do not feed until the new shoots have hardened.',
-    ], { cautions });
+    return make(
+      'decandle',
+      rules,
+      ['New buds should appear at the cut ends within three to four weeks; in autumn reduce them to two per tip.'],
+      [
+        'Work on a dry day, strongest areas last: cut the candles of the weakest areas first, those of the strongest areas about a week later.',
+        'Hold the candle and cut it with sharp scissors just above last year’s needles, leaving a short stub on the weak candles and almost none on the strongest.',
+        'Leave every older needle in place: the tree needs them to push the second flush.',
+        'Keep watering and sun as usual; do not feed until the new shoots have hardened.',
+      ],
+      { cautions },
+    );
   };
 
   if (input.shoot === 'candle-extending') {
     if (double && (strong || input.health === 'average') && !input.repottedThisYear && c.window !== 'after') {
       rules.push('flush.double-wait-candles-extending');
-      return make('let-grow', rules, ['Once the candles stop lengthening and their needles begin to open, ask again: that is when they are cut.'], [
-        'Leave the candles to lengthen; do not shorten them.',
-      ]);
+      return make(
+        'let-grow',
+        rules,
+        ['Once the candles stop lengthening and their needles begin to open, ask again: that is when they are cut.'],
+        ['Leave the candles to lengthen; do not shorten them.'],
+      );
     }
     if (position === 'at-silhouette') {
       rules.push('refine.at-silhouette-nothing', ...decandleAsides());
@@ -290,35 +320,56 @@ function pineAutumn(c: Ctx, rules: RuleId[]): Decision {
   const position = c.input.position ?? 'at-silhouette';
   if (c.technique === 'pine-double') {
     rules.push('pine.double-autumn-thin');
-    return make('thin', rules, ['In spring, let the candles lengthen; ask again when they stop.'], [
-      'At each tip where the second flush pushed several buds, keep two of about equal size and remove the others by twisting them off or snipping at the base.',
-      'In the strongest areas, pull out last year’s needles and thin this year’s to about a few bundles per shoot; leave the weak areas fuller.',
-      'Pull needles in the direction they grow, or cut them just above their sheath, so the buds at their base survive.',
-    ]);
+    return make(
+      'thin',
+      rules,
+      ['In spring, let the candles lengthen; ask again when they stop.'],
+      [
+        'At each tip where the second flush pushed several buds, keep two of about equal size and remove the others by twisting them off or snipping at the base.',
+        'In the strongest areas, pull out last year’s needles and thin this year’s to about a few bundles per shoot; leave the weak areas fuller.',
+        'Pull needles in the direction they grow, or cut them just above their sheath, so the buds at their base survive.',
+      ],
+    );
   }
   if (c.technique === 'pine-five') {
     rules.push('pine.five-autumn-light');
-    return make('thin', rules, ['In spring, reduce only the strongest candles, and lightly.'], [
-      'Where more than two buds crowd a tip, remove the extras, keeping two of moderate size.',
-      'Pull only the oldest, yellowing needles; keep the green ones.',
-      'Leave every weak shoot as it is.',
-    ]);
+    return make(
+      'thin',
+      rules,
+      ['In spring, reduce only the strongest candles, and lightly.'],
+      [
+        'Where more than two buds crowd a tip, remove the extras, keeping two of moderate size.',
+        'Pull only the oldest, yellowing needles; keep the green ones.',
+        'Leave every weak shoot as it is.',
+      ],
+    );
   }
   if (position === 'beyond-silhouette' && c.strength !== 'weak') {
     const n = bundlesToKeep(c.strength);
     rules.push('pine.autumn-cut-back', 'pine.no-bare-wood');
-    return make('prune', rules, ['Next spring, shorten the new candles on this shoot while they are soft.'], [
-      'Find a bud, or a point where you can leave needles, nearer the trunk than the silhouette.',
-      `Cut with sharp scissors just above it, leaving at least ${bundlesPhrase(c, n)} on the shoot below the cut.`,
-      'Never cut into wood with no needles left.',
-    ], { bundles: n });
+    return make(
+      'prune',
+      rules,
+      ['Next spring, shorten the new candles on this shoot while they are soft.'],
+      [
+        'Find a bud, or a point where you can leave needles, nearer the trunk than the silhouette.',
+        `Cut with sharp scissors just above it, leaving at least ${bundlesPhrase(c, n)} on the shoot below the cut.`,
+        'Never cut into wood with no needles left.',
+      ],
+      { bundles: n },
+    );
   }
   rules.push('pine.autumn-thin');
-  return make('thin', rules, ['Next spring, shorten the candles that push beyond the silhouette while they are soft.'], [
-    'Where several buds crowd a tip, keep two and remove the strongest and the weakest.',
-    'Pull out the old needles from earlier years, and in strong areas thin this year’s too, so light reaches the inner buds.',
-    'Pull needles in the direction they grow, or cut them above the sheath, so the buds at their base survive.',
-  ]);
+  return make(
+    'thin',
+    rules,
+    ['Next spring, shorten the candles that push beyond the silhouette while they are soft.'],
+    [
+      'Where several buds crowd a tip, keep two and remove the strongest and the weakest.',
+      'Pull out the old needles from earlier years, and in strong areas thin this year’s too, so light reaches the inner buds.',
+      'Pull needles in the direction they grow, or cut them above the sheath, so the buds at their base survive.',
+    ],
+  );
 }
 
 function scaleRefinement(c: Ctx): Decision {
@@ -342,12 +393,17 @@ function scaleRefinement(c: Ctx): Decision {
     return make('wait', rules, ['Trim it once it grows out beyond the outline.']);
   }
   rules.push('scale.trim-to-fork', 'scale.keep-green');
-  return make('prune', rules, ['New shoots will grow from the fork you kept; trim them the same way when they grow long.'], [
-    'Follow the long shoot back to a fork or side shoot that has green foliage beyond it, inside the outline.',
-    'Cut just above that fork with sharp, fine scissors.',
-    'Do not shear across the foliage and do not pull the soft tips off with your fingers.',
-    'Always leave green growth at the end of the branch.',
-  ]);
+  return make(
+    'prune',
+    rules,
+    ['New shoots will grow from the fork you kept; trim them the same way when they grow long.'],
+    [
+      'Follow the long shoot back to a fork or side shoot that has green foliage beyond it, inside the outline.',
+      'Cut just above that fork with sharp, fine scissors.',
+      'Do not shear across the foliage and do not pull the soft tips off with your fingers.',
+      'Always leave green growth at the end of the branch.',
+    ],
+  );
 }
 
 function spruceRefinement(c: Ctx): Decision {
@@ -370,24 +426,34 @@ function spruceRefinement(c: Ctx): Decision {
     if (c.strength === 'weak') return make('let-grow', [...rules, 'refine.weak-shoot-leave'], ['A weak shoot is left whole to gain strength.']);
     rules.push(fir ? 'fir.cut-to-side-bud' : 'spruce.shorten-extending');
     if (hemlock) rules.push('spruce.hemlock-latent');
-    return make('pinch', rules, ['Side buds along the remaining part of the shoot grow next year.'], [
-      'Strongest shoots first; leave weak ones whole.',
-      fir
-        ? 'Cut just above a visible side bud on the new shoot, with fine scissors.'
-        : 'Pinch or cut off about half of the soft new shoot, leaving its base with its needles and side buds.',
-      'Do not cut back into wood without needles.',
-    ]);
+    return make(
+      'pinch',
+      rules,
+      ['Side buds along the remaining part of the shoot grow next year.'],
+      [
+        'Strongest shoots first; leave weak ones whole.',
+        fir
+          ? 'Cut just above a visible side bud on the new shoot, with fine scissors.'
+          : 'Pinch or cut off about half of the soft new shoot, leaving its base with its needles and side buds.',
+        'Do not cut back into wood without needles.',
+      ],
+    );
   }
   if (!isLate(c)) {
     return make('wait', [...rules, 'scale.not-while-hardening'], ['In late summer or autumn, long hardened shoots can be cut back to a side bud.']);
   }
   rules.push('spruce.cut-to-side-bud');
   if (hemlock) rules.push('spruce.hemlock-latent');
-  return make('prune', rules, ['The side bud you cut to becomes the new tip next spring.'], [
-    'Find a side bud, or a side shoot, pointing the way you want the branch to grow.',
-    'Cut just above it with sharp scissors and leave no stub.',
-    'Never cut back into bare wood: spruce and fir do not regrow from it.',
-  ]);
+  return make(
+    'prune',
+    rules,
+    ['The side bud you cut to becomes the new tip next spring.'],
+    [
+      'Find a side bud, or a side shoot, pointing the way you want the branch to grow.',
+      'Cut just above it with sharp scissors and leave no stub.',
+      'Never cut back into bare wood: spruce and fir do not regrow from it.',
+    ],
+  );
 }
 
 function larchRefinement(c: Ctx): Decision {
@@ -403,11 +469,16 @@ function larchRefinement(c: Ctx): Decision {
     return make('let-grow', rules, ['Let the long shoot grow out; in summer shorten it to two or three buds from its base.']);
   }
   rules.push('larch.shorten-summer');
-  return make('prune', rules, ['Spurs and buds below the cut grow next spring.'], [
-    'Count two or three buds or spur shoots from the base of this year’s long shoot.',
-    'Cut just beyond the last one with sharp scissors.',
-    'Leave the short spur shoots along older wood alone.',
-  ]);
+  return make(
+    'prune',
+    rules,
+    ['Spurs and buds below the cut grow next spring.'],
+    [
+      'Count two or three buds or spur shoots from the base of this year’s long shoot.',
+      'Cut just beyond the last one with sharp scissors.',
+      'Leave the short spur shoots along older wood alone.',
+    ],
+  );
 }
 
 function yewRefinement(c: Ctx): Decision {
@@ -423,11 +494,16 @@ function yewRefinement(c: Ctx): Decision {
     return make(c.s.season === 'autumn' ? 'wait' : 'let-grow', rules, ['Trim new shoots after they have grown out, in early summer.']);
   }
   rules.push('yew.trim-new-growth');
-  return make('prune', rules, ['New shoots grow again from the cut; trim them the same way next year.'], [
-    'With sharp scissors, cut each long new shoot back, leaving a few leaves of this year’s growth.',
-    'Follow the outline you want; yew and podocarp regrow even from older wood.',
-    'Yew leaves and seeds are poisonous: keep clippings away from children and animals.',
-  ]);
+  return make(
+    'prune',
+    rules,
+    ['New shoots grow again from the cut; trim them the same way next year.'],
+    [
+      'With sharp scissors, cut each long new shoot back, leaving a few leaves of this year’s growth.',
+      'Follow the outline you want; yew and podocarp regrow even from older wood.',
+      'Yew leaves and seeds are poisonous: keep clippings away from children and animals.',
+    ],
+  );
 }
 
 function cedarRefinement(c: Ctx): Decision {
@@ -437,15 +513,18 @@ function cedarRefinement(c: Ctx): Decision {
     rules.push(isWinter(c) ? 'season.winter-dormant' : 'develop.bud-not-yet');
     return make('wait', rules, ['When new shoots lengthen, shorten the long ones with scissors.']);
   }
-  if (position !== 'beyond-silhouette' || c.strength === 'weak') return make('let-grow', [...rules, position === 'interior' ? 'scale.interior-let-grow' : 'refine.weak-shoot-leave'], ['Leave it to grow.']);
+  if (position !== 'beyond-silhouette' || c.strength === 'weak')
+    return make('let-grow', [...rules, position === 'interior' ? 'scale.interior-let-grow' : 'refine.weak-shoot-leave'], ['Leave it to grow.']);
   if (c.input.shoot === 'needles-hardened') {
     return make('wait', [...rules, 'scale.not-while-hardening'], ['Next spring, shorten long new shoots while they are soft.']);
   }
   rules.push('cedar.shorten-new');
-  return make('prune', rules, ['Short spur shoots behind the cut thicken the foliage.'], [
-    'With fine scissors, cut the long soft shoot back to a side shoot or tuft of needles inside the outline.',
-    'Leave the short spur shoots alone.',
-  ]);
+  return make(
+    'prune',
+    rules,
+    ['Short spur shoots behind the cut thicken the foliage.'],
+    ['With fine scissors, cut the long soft shoot back to a side shoot or tuft of needles inside the outline.', 'Leave the short spur shoots alone.'],
+  );
 }
 
 function decide(c: Ctx): Decision {
@@ -474,8 +553,13 @@ function decide(c: Ctx): Decision {
 }
 
 const ASIDE_RULES = new Set<RuleId>([
-  'flush.single-never-decandle', 'flush.no-decandle-development', 'flush.no-decandle-weak', 'flush.no-decandle-repotted', 'flush.double-no-window',
-  'larch.no-published', 'cedar.no-published',
+  'flush.single-never-decandle',
+  'flush.no-decandle-development',
+  'flush.no-decandle-weak',
+  'flush.no-decandle-repotted',
+  'flush.double-no-window',
+  'larch.no-published',
+  'cedar.no-published',
 ]);
 
 function headlineFor(d: Decision, c: Ctx): string {
@@ -500,7 +584,11 @@ function headlineFor(d: Decision, c: Ctx): string {
 
 function dedupe(cautions: Caution[]): Caution[] {
   const seen = new Set<string>();
-  const key = (t: string) => t.toLowerCase().replace(/[^a-z]+/g, ' ').trim();
+  const key = (t: string) =>
+    t
+      .toLowerCase()
+      .replace(/[^a-z]+/g, ' ')
+      .trim();
   return cautions.filter((c) => {
     const k = key(c.text);
     // A species caution about collecting from the wild says what the general one says.
@@ -516,7 +604,7 @@ export function evaluate(input: WizardInput, species: WizardSpecies, context: Wi
   const iso = input.date ?? context.today;
   const date = parseIsoDate(iso);
   if (!date) throw new WizardInputError('date', 'Give the date as YYYY-MM-DD.');
-  if (input.hemisphere && typeof input.latitude === 'number' && input.latitude !== 0 && (input.latitude < 0) !== (input.hemisphere === 'south')) {
+  if (input.hemisphere && typeof input.latitude === 'number' && input.latitude !== 0 && input.latitude < 0 !== (input.hemisphere === 'south')) {
     const msg = `A ${input.hemisphere}ern hemisphere and a latitude of ${input.latitude}° disagree: give a ${input.hemisphere === 'south' ? 'negative' : 'positive'} latitude, or the other hemisphere.`;
     throw new WizardInputError('hemisphere', msg, { hemisphere: [msg], latitude: [msg] });
   }
@@ -527,7 +615,12 @@ export function evaluate(input: WizardInput, species: WizardSpecies, context: Wi
   const technique = techniqueOf(species);
   const tropics = Math.abs(latitude) < TROPIC_LATITUDE;
   const c: Ctx = {
-    input, species, technique, stage, s, tropics,
+    input,
+    species,
+    technique,
+    stage,
+    s,
+    tropics,
     window: decandleWindowPosition(date, hemisphere, latitude, context.decandleOffsetDays ?? 0),
     strength: input.candleStrength ?? 'average',
   };
@@ -548,9 +641,20 @@ export function evaluate(input: WizardInput, species: WizardSpecies, context: Wi
   }
 
   const fertilizer = feedingPlan({
-    stage, season: s.season, shoot: input.shoot, species, technique, container: input.container,
-    recentlyCollected: input.recentlyCollected, weak: input.health === 'weak', tropics,
-    secondFlush: technique === 'pine-double' && stage === 'refinement' && !input.repottedThisYear && c.window !== 'none' &&
+    stage,
+    season: s.season,
+    shoot: input.shoot,
+    species,
+    technique,
+    container: input.container,
+    recentlyCollected: input.recentlyCollected,
+    weak: input.health === 'weak',
+    tropics,
+    secondFlush:
+      technique === 'pine-double' &&
+      stage === 'refinement' &&
+      !input.repottedThisYear &&
+      c.window !== 'none' &&
       (d.action === 'decandle' || (c.window === 'after' && s.season === 'summer')),
   });
   const watch = [...d.watch];

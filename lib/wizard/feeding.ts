@@ -95,7 +95,12 @@ export function feedingPlan(f: FeedingInput): FertilizerPlan {
     const fit = pilesForSurface(surfaceCm2, regime);
     piles = fit.piles;
     pellets = fit.pellets;
-    reasons.push(reason('feed.pile-scaling', `Your ${describeContainer(f.container!)} has about ${surfaceCm2} cm² of soil: ${piles} ${piles === 1 ? 'pile' : 'piles'} of ${pellets.min}–${pellets.max} pellets.`));
+    reasons.push(
+      reason(
+        'feed.pile-scaling',
+        `Your ${describeContainer(f.container!)} has about ${surfaceCm2} cm² of soil: ${piles} ${piles === 1 ? 'pile' : 'piles'} of ${pellets.min}–${pellets.max} pellets.`,
+      ),
+    );
   } else if (regime) {
     reasons.push(reason('feed.mid-sized-pot'));
   }

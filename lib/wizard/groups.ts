@@ -2,20 +2,18 @@ import type { WizardSpecies } from '@/lib/validation/species';
 
 // How the wizard works a species: by technique group, derived from the species' group and its
 // traits, never from the flush habit alone.
-export const techniques = [
-  'pine-single', // single-flush pines with one whorl a year (uninodal)
-  'pine-multinodal', // pines with several whorls along one year's shoot, or several flushes a season
-  'pine-double', // pines that push a second flush after their spring candles are cut
-  'pine-five', // five-needle pines: slow, reduced lightly
-  'scale-foliage', // junipers, cypresses, Cryptomeria and swamp cypress
-  'spruce', // spruce, Douglas fir, hemlock: buds along the shoot, cut to a side bud
-  'fir',
-  'larch', // deciduous: no needles to count
-  'yew', // yews and podocarps: regrow from old wood
-  'cedar',
-  'unknown',
-] as const;
-export type Technique = (typeof techniques)[number];
+export type Technique =
+  | 'pine-single' // single-flush pines with one whorl a year (uninodal)
+  | 'pine-multinodal' // pines with several whorls along one year's shoot, or several flushes a season
+  | 'pine-double' // pines that push a second flush after their spring candles are cut
+  | 'pine-five' // five-needle pines: slow, reduced lightly
+  | 'scale-foliage' // junipers, cypresses, Cryptomeria and swamp cypress
+  | 'spruce' // spruce, Douglas fir, hemlock: buds along the shoot, cut to a side bud
+  | 'fir'
+  | 'larch' // deciduous: no needles to count
+  | 'yew' // yews and podocarps: regrow from old wood
+  | 'cedar'
+  | 'unknown';
 
 export function techniqueOf(species: Pick<WizardSpecies, 'group' | 'flushHabit' | 'shootHabit' | 'needlesPerFascicle'>): Technique {
   switch (species.group) {

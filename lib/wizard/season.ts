@@ -14,10 +14,7 @@ export function parseIsoDate(iso: string): Date | null {
  * Which hemisphere applies: an explicit choice wins, then the sign of the latitude,
  * then the club setting.
  */
-export function resolveHemisphere(
-  input: { hemisphere?: Hemisphere; latitude?: number },
-  context: Pick<WizardContext, 'hemisphere'>,
-): Hemisphere {
+export function resolveHemisphere(input: { hemisphere?: Hemisphere; latitude?: number }, context: Pick<WizardContext, 'hemisphere'>): Hemisphere {
   if (input.hemisphere) return input.hemisphere;
   if (typeof input.latitude === 'number' && input.latitude !== 0) return input.latitude < 0 ? 'south' : 'north';
   return context.hemisphere;
@@ -27,11 +24,7 @@ export function resolveHemisphere(
  * The latitude for day length. A given latitude is used, else the club's; its sign is made to
  * agree with the hemisphere in force, because the hemisphere wins when the two disagree.
  */
-export function resolveLatitude(
-  input: { latitude?: number },
-  hemisphere: Hemisphere,
-  context: Pick<WizardContext, 'latitude'>,
-): number {
+export function resolveLatitude(input: { latitude?: number }, hemisphere: Hemisphere, context: Pick<WizardContext, 'latitude'>): number {
   const lat = Math.abs(input.latitude ?? context.latitude);
   return hemisphere === 'south' ? -lat : lat;
 }

@@ -82,64 +82,68 @@ function checkSnapshot(snap: Snapshot, acked: Map<string, number>, singles: Set<
 }
 
 describe('crash safety of the data directory', () => {
-  it(`keeps every acknowledged commit through ${CYCLES} SIGKILLs at random moments (seed ${SEED})`, async () => {
-    const random = rng(SEED);
-    const dir = tmpDir();
-    // The first open initialises the directory; the cycles then reuse it (an existing directory
-    // opens in about a second, a fresh one takes three).
-    const init = spawnWriter(['open', dir]);
-    expect((await init.exited).code, init.stderr()).toBe(0);
+  it(
+    `keeps every acknowledged commit through ${CYCLES} SIGKILLs at random moments (seed ${SEED})`,
+    async () => {
+      const random = rng(SEED);
+      const dir = tmpDir();
+      // The first open initialises the directory; the cycles then reuse it (an existing directory
+      // opens in about a second, a fresh one takes three).
+      const init = spawnWriter(['open', dir]);
+      expect((await init.exited).code, init.stderr()).toBe(0);
 
-    const acked = new Map<string, number>();
-    const singles = new Set<string>();
-    let killedWhileOpening = 0;
-    let killedWhileWriting = 0;
-    let verified = 0;
-    const started = Date.now();
-    for (let cycle = 1; cycle <= CYCLES; cycle++) {
-      const child = spawnWriter(['write', dir, String(cycle)]);
-      if (random() < 0.2) {
-        // Kill somewhere in start-up: module loading, recovery, migrations check, the report.
-        await sleep(random() * 1500);
-        killedWhileOpening++;
-      } else {
-        await child.waitFor('writing');
-        await sleep(random() * 300);
-        killedWhileWriting++;
-      }
-      const exit = await killNow(child);
-      // The child never fails on its own: an error exit means the directory did not open cleanly.
-      expect(exit.code, `cycle ${cycle}: ${child.stderr()}`).toBe(null);
-      expect(exit.signal).toBe('SIGKILL');
+      const acked = new Map<string, number>();
+      const singles = new Set<string>();
+      let killedWhileOpening = 0;
+      let killedWhileWriting = 0;
+      let verified = 0;
+      const started = Date.now();
+      for (let cycle = 1; cycle <= CYCLES; cycle++) {
+        const child = spawnWriter(['write', dir, String(cycle)]);
+        if (random() < 0.2) {
+          // Kill somewhere in start-up: module loading, recovery, migrations check, the report.
+          await sleep(random() * 1500);
+          killedWhileOpening++;
+        } else {
+          await child.waitFor('writing');
+          await sleep(random() * 300);
+          killedWhileWriting++;
+        }
+        const exit = await killNow(child);
+        // The child never fails on its own: an error exit means the directory did not open cleanly.
+        expect(exit.code, `cycle ${cycle}: ${child.stderr()}`).toBe(null);
+        expect(exit.signal).toBe('SIGKILL');
 
-      const snap = snapshotOf(child);
-      if (snap) {
-        checkSnapshot(snap, acked, singles, `cycle ${cycle}`);
-        verified++;
+        const snap = snapshotOf(child);
+        if (snap) {
+          checkSnapshot(snap, acked, singles, `cycle ${cycle}`);
+          verified++;
+        }
+        for (const l of child.lines) {
+          const m = /^ack (\S+) (\d+)$/.exec(l);
+          if (m) acked.set(m[1], Number(m[2]));
+          const one = /^ack1 (\S+)$/.exec(l);
+          if (one) singles.add(one[1]);
+        }
       }
-      for (const l of child.lines) {
-        const m = /^ack (\S+) (\d+)$/.exec(l);
-        if (m) acked.set(m[1], Number(m[2]));
-        const one = /^ack1 (\S+)$/.exec(l);
-        if (one) singles.add(one[1]);
-      }
-    }
 
-    // A final, orderly open: it must succeed and hold every acknowledged commit.
-    const last = spawnWriter(['open', dir]);
-    expect((await last.exited).code, last.stderr()).toBe(0);
-    const snap = snapshotOf(last);
-    expect(snap).not.toBeNull();
-    checkSnapshot(snap!, acked, singles, 'final open');
-    expect(acked.size).toBeGreaterThan(CYCLES);
-    expect(singles.size).toBeGreaterThan(CYCLES);
-    console.log(
-      `[crash] ${CYCLES} cycles in ${((Date.now() - started) / 1000).toFixed(1)} s (seed ${SEED}): ` +
-        `${killedWhileOpening} kills while opening, ${killedWhileWriting} while writing, ` +
-        `${verified} reopenings checked, ${acked.size + singles.size} acknowledged commits ` +
-        `(${singles.size} through saveAnswer), ${snap!.ids.size} rows on disk`,
-    );
-  }, CYCLES * 10_000 + 60_000);
+      // A final, orderly open: it must succeed and hold every acknowledged commit.
+      const last = spawnWriter(['open', dir]);
+      expect((await last.exited).code, last.stderr()).toBe(0);
+      const snap = snapshotOf(last);
+      expect(snap).not.toBeNull();
+      checkSnapshot(snap!, acked, singles, 'final open');
+      expect(acked.size).toBeGreaterThan(CYCLES);
+      expect(singles.size).toBeGreaterThan(CYCLES);
+      console.log(
+        `[crash] ${CYCLES} cycles in ${((Date.now() - started) / 1000).toFixed(1)} s (seed ${SEED}): ` +
+          `${killedWhileOpening} kills while opening, ${killedWhileWriting} while writing, ` +
+          `${verified} reopenings checked, ${acked.size + singles.size} acknowledged commits ` +
+          `(${singles.size} through saveAnswer), ${snap!.ids.size} rows on disk`,
+      );
+    },
+    CYCLES * 10_000 + 60_000,
+  );
 
   it('reports an interrupted first initialisation clearly on the next start', async () => {
     const random = rng(SEED + 1);
@@ -155,7 +159,10 @@ describe('crash safety of the data directory', () => {
     }
     await sleep(random() * 400);
     await killNow(first);
-    expect(first.lines.some((l) => l.startsWith('ready')), 'the kill came after initialisation finished').toBe(false);
+    expect(
+      first.lines.some((l) => l.startsWith('ready')),
+      'the kill came after initialisation finished',
+    ).toBe(false);
     expect(fs.existsSync(marker)).toBe(true);
 
     // The next opener — the data layer in a fresh process — refuses with the clear error …

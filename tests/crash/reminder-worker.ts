@@ -27,7 +27,13 @@ async function prepare(dir: string, members: number, weekOf: string) {
       .insert(users)
       .values({ email: `crash-remind-${i}@candlewise.test`, name: `Crash member ${i}`, reminderOptIn: true })
       .returning({ id: users.id });
-    await handle.db.insert(trees).values({ id: `crashtree${String(i).padStart(4, '0')}`, ownerId: u.id, name: `Crash pine ${i}`, speciesSlug: 'pinus-sylvestris', stageNotes: 'Refinement: tertiary branching on every pad.' });
+    await handle.db.insert(trees).values({
+      id: `crashtree${String(i).padStart(4, '0')}`,
+      ownerId: u.id,
+      name: `Crash pine ${i}`,
+      speciesSlug: 'pinus-sylvestris',
+      stageNotes: 'Refinement: tertiary branching on every pad.',
+    });
   }
   const [admin] = await handle.db.select().from(users).where(eq(users.email, 'admin@candlewise.test'));
   const { startReminderRun } = await import('../../lib/data/reminders');
@@ -46,7 +52,10 @@ async function work(dir: string, smtpPort: string) {
   say('working');
   let last = -1;
   for (;;) {
-    const [{ n }] = await handle.db.select({ n: sql<number>`count(*)::int` }).from(reminderRunMembers).where(isNotNull(reminderRunMembers.outcome));
+    const [{ n }] = await handle.db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(reminderRunMembers)
+      .where(isNotNull(reminderRunMembers.outcome));
     const [{ total }] = await handle.db.select({ total: sql<number | null>`max(${reminderRuns.total})` }).from(reminderRuns);
     if (n !== last) say(`progress ${n}`);
     last = n;

@@ -78,13 +78,23 @@ describe('reminders through SIGKILL', () => {
       const members = await db.select({ id: users.id, email: users.email }).from(users).where(like(users.email, 'crash-remind-%'));
       expect(members).toHaveLength(MEMBERS);
       for (const m of members) {
-        const mails = await db.select({ id: outboxMessages.id, subject: outboxMessages.subject }).from(outboxMessages).where(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([m.email])}::jsonb`);
+        const mails = await db
+          .select({ id: outboxMessages.id, subject: outboxMessages.subject })
+          .from(outboxMessages)
+          .where(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([m.email])}::jsonb`);
         expect(mails, `${m.email}: messages`).toHaveLength(1);
         expect(mails[0].subject).toContain('10 May 2027');
       }
-      const ledger = await db.select({ state: reminderSends.state }).from(reminderSends).innerJoin(users, eq(users.id, reminderSends.userId)).where(like(users.email, 'crash-remind-%'));
+      const ledger = await db
+        .select({ state: reminderSends.state })
+        .from(reminderSends)
+        .innerJoin(users, eq(users.id, reminderSends.userId))
+        .where(like(users.email, 'crash-remind-%'));
       expect(ledger.map((l) => l.state)).toEqual(Array(MEMBERS).fill('sent'));
-      const outcomes = await db.select({ outcome: reminderRunMembers.outcome, email: users.email }).from(reminderRunMembers).innerJoin(users, eq(users.id, reminderRunMembers.userId));
+      const outcomes = await db
+        .select({ outcome: reminderRunMembers.outcome, email: users.email })
+        .from(reminderRunMembers)
+        .innerJoin(users, eq(users.id, reminderRunMembers.userId));
       expect(outcomes.filter((o) => o.email.startsWith('crash-remind-')).every((o) => o.outcome === 'sent')).toBe(true);
     } finally {
       await handle.close();

@@ -24,19 +24,22 @@ const migrationsFolder = path.resolve(__dirname, '../../db/migrations');
 const say = (line: string) => fs.writeSync(1, `${line}\n`);
 
 async function ensureUser(db: Db) {
-  await db
-    .insert(users)
-    .values({ id: CRASH_USER_ID, email: 'crash-writer@candlewise.test', name: 'Crash writer' })
-    .onConflictDoNothing();
+  await db.insert(users).values({ id: CRASH_USER_ID, email: 'crash-writer@candlewise.test', name: 'Crash writer' }).onConflictDoNothing();
 }
 
 /** What is on disk now: every answer id, and the same count read by an index scan and a heap scan. */
 async function report(db: Db) {
-  const rows = await db.select({ id: answers.id }).from(answers).where(sql`${answers.userId} = ${CRASH_USER_ID}`);
+  const rows = await db
+    .select({ id: answers.id })
+    .from(answers)
+    .where(sql`${answers.userId} = ${CRASH_USER_ID}`);
   const count = async (...settings: string[]) => {
     const [r] = await db.transaction(async (tx) => {
       for (const s of settings) await tx.execute(sql.raw(s));
-      return tx.select({ n: sql<number>`count(*)::int` }).from(answers).where(sql`${answers.userId} = ${CRASH_USER_ID}`);
+      return tx
+        .select({ n: sql<number>`count(*)::int` })
+        .from(answers)
+        .where(sql`${answers.userId} = ${CRASH_USER_ID}`);
     });
     return r.n;
   };
@@ -68,7 +71,11 @@ const crashUser = { id: CRASH_USER_ID, name: 'Crash writer', email: 'crash-write
 async function write(db: Db, cycle: string) {
   await ensureUser(db);
   const { saveAnswer } = await import('../../lib/data/answers');
-  const [sp] = await db.select({ slug: species.slug }).from(species).where(sql`${species.publishedRevision} is not null`).limit(1);
+  const [sp] = await db
+    .select({ slug: species.slug })
+    .from(species)
+    .where(sql`${species.publishedRevision} is not null`)
+    .limit(1);
   const body = { species: sp.slug, branching: 'tertiary', date: '2026-06-15', shoot: 'candle-extending', position: 'at-silhouette', health: 'strong' } as const;
   say('writing');
   for (let n = 0; ; n++) {

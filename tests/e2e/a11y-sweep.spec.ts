@@ -11,11 +11,33 @@ const ANSWER = 'demoAnsWeirScots1';
 const NOTE = '2026-04-18-spring-candle-evening';
 const SPECIES = 'pinus-thunbergii';
 
-const memberPages = ['/', '/species', `/species/${SPECIES}`, '/ask', '/answers', `/answers/${ANSWER}`, '/trees', '/trees/new', `/trees/${TREE}`, `/trees/${TREE}/edit`, '/notes', `/notes/${NOTE}`, '/profile'];
+const memberPages = [
+  '/',
+  '/species',
+  `/species/${SPECIES}`,
+  '/ask',
+  '/answers',
+  `/answers/${ANSWER}`,
+  '/trees',
+  '/trees/new',
+  `/trees/${TREE}`,
+  `/trees/${TREE}/edit`,
+  '/notes',
+  `/notes/${NOTE}`,
+  '/profile',
+];
 const roles: { role: string; email: string | null; pages: string[] }[] = [
-  { role: 'visitor', email: null, pages: ['/', '/sign-in', '/sign-up', '/verify', '/unsubscribe', '/sign-up/confirm?token=not-a-real-confirmation-token', '/species', `/species/${SPECIES}`] },
+  {
+    role: 'visitor',
+    email: null,
+    pages: ['/', '/sign-in', '/sign-up', '/verify', '/unsubscribe', '/sign-up/confirm?token=not-a-real-confirmation-token', '/species', `/species/${SPECIES}`],
+  },
   { role: 'member', email: 'member@candlewise.test', pages: [...memberPages, '/admin'] },
-  { role: 'editor', email: 'editor@candlewise.test', pages: ['/species', `/species/${SPECIES}`, `/species/${SPECIES}/edit`, `/species/${SPECIES}/history`, '/species/new', '/species/import'] },
+  {
+    role: 'editor',
+    email: 'editor@candlewise.test',
+    pages: ['/species', `/species/${SPECIES}`, `/species/${SPECIES}/edit`, `/species/${SPECIES}/history`, '/species/new', '/species/import'],
+  },
   { role: 'librarian', email: 'librarian@candlewise.test', pages: ['/notes', `/notes/${NOTE}`, `/notes/${NOTE}/edit`, '/notes/new'] },
   { role: 'admin', email: 'admin@candlewise.test', pages: ['/admin', '/admin/outbox', `/answers/${ANSWER}`, '/species', '/notes'] },
 ];
@@ -30,7 +52,13 @@ async function scan(page: Page, path: string) {
   const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'best-practice']).analyze();
   return results.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${path}: [${v.impact}] ${v.id}: ${v.help} — ${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join(' | ')}`);
+    .map(
+      (v) =>
+        `${path}: [${v.impact}] ${v.id}: ${v.help} — ${v.nodes
+          .slice(0, 3)
+          .map((n) => n.target.join(' '))
+          .join(' | ')}`,
+    );
 }
 
 for (const { role, email, pages } of roles) {

@@ -21,7 +21,12 @@ test('a role change waits for Save and a confirmation naming the person; an arro
   await expect(row.getByRole('alertdialog')).toHaveCount(0);
   await expect(row.getByRole('button', { name: /Save changes/ })).toBeEnabled();
   await page.reload();
-  await expect(page.getByTestId('user-row').filter({ hasText: 'member2@candlewise.test' }).getByLabel(/Role of Tamsin Reed/)).toHaveValue('member');
+  await expect(
+    page
+      .getByTestId('user-row')
+      .filter({ hasText: 'member2@candlewise.test' })
+      .getByLabel(/Role of Tamsin Reed/),
+  ).toHaveValue('member');
   expect(patches).toBe(0);
 
   // Save asks first, naming the person and the new role; Cancel sends nothing.
@@ -43,7 +48,12 @@ test('a role change waits for Save and a confirmation naming the person; an arro
   await expect(result).toBeFocused();
   expect(patches).toBe(1);
   await page.reload();
-  await expect(page.getByTestId('user-row').filter({ hasText: 'member2@candlewise.test' }).getByLabel(/Role of Tamsin Reed/)).toHaveValue('librarian');
+  await expect(
+    page
+      .getByTestId('user-row')
+      .filter({ hasText: 'member2@candlewise.test' })
+      .getByLabel(/Role of Tamsin Reed/),
+  ).toHaveValue('librarian');
 
   // Put it back, so that the other tests see the seeded roles.
   await role.selectOption('member');

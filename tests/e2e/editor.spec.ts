@@ -31,7 +31,10 @@ test('a draft may wait for a citation; publishing from the preview needs it; his
   await expect(refusal).toBeFocused();
 
   await edit.open(SLUG);
-  await page.getByTestId('field-vigour').getByLabel(/Citation/).fill('Great Basin field guide (2004)');
+  await page
+    .getByTestId('field-vigour')
+    .getByLabel(/Citation/)
+    .fill('Great Basin field guide (2004)');
   await edit.saveDraft('Add the vigour citation');
   await expect(page.getByTestId('revision-banner')).toContainText('a draft');
   await page.screenshot({ path: screenshotPath('species-draft-preview-desktop'), fullPage: true });
@@ -54,7 +57,9 @@ test('a draft may wait for a citation; publishing from the preview needs it; his
   const options = await page.getByLabel('From').locator('option').allTextContents();
   const newest = Number(options[0].match(/\d+/)![0]);
   await page.goto(`/species/${SLUG}/history?from=1&to=${newest}`);
-  await expect(page.getByTestId('trait-changes')).toContainText('Vigour: Low → High; source: Southern Utah University tree tour: very slow → Great Basin field guide (2004)');
+  await expect(page.getByTestId('trait-changes')).toContainText(
+    'Vigour: Low → High; source: Southern Utah University tree tour: very slow → Great Basin field guide (2004)',
+  );
   const added = page.getByTestId('body-diff').getByTestId('diff-added');
   await expect(added).toContainText('- pinch the strongest candles first');
   await expect(page.getByTestId('body-diff').getByTestId('diff-removed')).toHaveCount(0);

@@ -18,8 +18,14 @@ test('a librarian writes a note linking a shared answer, publishes it and sends 
   await expect(body).toHaveValue(`We looked again at \n[pinch on Scots pine](/answers/${SHARED_ANSWER})\n`);
   // The picker tells lookalike answers apart: member and tree beside action, species and date.
   await expect(page.getByTestId('picker-answer').filter({ hasText: 'Wren Alder' }).first()).toContainText(/tree “[^”]+”|no tree named/);
-  await page.getByTestId('picker-answers').getByRole('button', { name: /^Insert link to/ }).first().click();
-  await expect(body).toHaveValue(new RegExp(`^We looked again at \\n\\[pinch on Scots pine\\]\\(/answers/${SHARED_ANSWER}\\)\\n\\[[^\\]]+\\]\\(/answers/\\w+\\)\\n$`));
+  await page
+    .getByTestId('picker-answers')
+    .getByRole('button', { name: /^Insert link to/ })
+    .first()
+    .click();
+  await expect(body).toHaveValue(
+    new RegExp(`^We looked again at \\n\\[pinch on Scots pine\\]\\(/answers/${SHARED_ANSWER}\\)\\n\\[[^\\]]+\\]\\(/answers/\\w+\\)\\n$`),
+  );
   await page.screenshot({ path: screenshotPath('note-picker-desktop'), fullPage: true });
   await body.press('ControlOrMeta+End');
   await body.pressSequentially(' and agreed to pinch early.\n\n<script>alert(1)</script>');
@@ -51,7 +57,9 @@ test('a librarian writes a note linking a shared answer, publishes it and sends 
   // First a preview, as a member will get it, with the number of recipients; nothing is sent yet.
   const digestPreview = digest.getByTestId('digest-preview');
   await expect(digestPreview.getByRole('heading', { name: 'Check the e-mail before it goes out' })).toBeFocused();
-  await expect(digestPreview.getByTestId('digest-recipients')).toHaveText(`It goes to ${optedIn} member${optedIn === 1 ? '' : 's'}, one message each with their own link to stop them.`);
+  await expect(digestPreview.getByTestId('digest-recipients')).toHaveText(
+    `It goes to ${optedIn} member${optedIn === 1 ? '' : 's'}, one message each with their own link to stop them.`,
+  );
   const htmlPart = digestPreview.frameLocator('[data-testid=digest-preview-html]');
   await expect(htmlPart.getByRole('heading', { level: 1 })).toHaveText(title);
   await expect(htmlPart.getByText('asked by Wren Alder').first()).toBeVisible();

@@ -76,7 +76,10 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
   await expect(page.getByTestId('saved-waiting')).toContainText('waiting to send');
   await expect(page.getByTestId('waiting-count')).toHaveText('1');
   await expect(page.getByTestId('waiting-item')).toContainText('Scots pine, 2027-05-10');
-  await page.getByTestId('saved-waiting').locator('..').screenshot({ path: screenshotPath('offline-save-waiting-360') });
+  await page
+    .getByTestId('saved-waiting')
+    .locator('..')
+    .screenshot({ path: screenshotPath('offline-save-waiting-360') });
   await noOverflow(page);
   await page.screenshot({ path: screenshotPath('offline-waiting-360'), fullPage: true });
   expect(await ownAnswerIds(page)).toEqual(before);
@@ -114,9 +117,22 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
 
 test('a saved answer the phone worked out differently shows both answers; offline its edits say they need a connection', async ({ page, context }) => {
   await new SignInPage(page).withPassword('member@candlewise.test');
-  const body = { species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average' };
+  const body = {
+    species: 'pinus-sylvestris',
+    branching: 'tertiary',
+    date: '2027-05-10',
+    shoot: 'candle-extending',
+    position: 'beyond-silhouette',
+    health: 'average',
+  };
   const server = await (await page.request.post('/api/wizard/evaluate', { data: body })).json();
-  const phoneResult = { ...server, action: 'wait', headline: 'Wait: nothing to do now', speciesRevision: server.speciesRevision - 1, reasons: server.reasons.slice(0, 1) };
+  const phoneResult = {
+    ...server,
+    action: 'wait',
+    headline: 'Wait: nothing to do now',
+    speciesRevision: server.speciesRevision - 1,
+    reasons: server.reasons.slice(0, 1),
+  };
   const saved = await page.request.post('/api/answers', { data: { ...body, phoneResult }, headers: { 'Idempotency-Key': `e2e-${Date.now()}-compare-key` } });
   expect(saved.status()).toBe(201);
   await page.goto((await saved.json()).url);
@@ -160,17 +176,23 @@ test('signing out drops the member caches', async ({ page }) => {
   // The species data is the same for everyone and stays.
   await expect.poll(() => cached(page, 'wizard-data', '/api/wizard/offline-data')).toBe(true);
   // A signed-out wizard page is kept again later, never the member's.
-  await expect.poll(async () => page.evaluate(async () => {
-    const r = await (await caches.open('ask-page')).match(new URL('/ask', location.origin).href);
-    return r ? !(await r.text()).includes('Wren Alder') : true;
-  })).toBe(true);
+  await expect
+    .poll(async () =>
+      page.evaluate(async () => {
+        const r = await (await caches.open('ask-page')).match(new URL('/ask', location.origin).href);
+        return r ? !(await r.text()).includes('Wren Alder') : true;
+      }),
+    )
+    .toBe(true);
 });
 
 test('the manifest and the service worker are served with the right types', async ({ page }) => {
   const m = await page.request.get('/manifest.webmanifest');
   expect(m.headers()['content-type']).toMatch(/^application\/manifest\+json/);
   const manifest = await m.json();
-  expect(manifest.icons.map((i: { sizes: string; purpose: string }) => `${i.sizes} ${i.purpose}`)).toEqual(expect.arrayContaining(['192x192 any', '512x512 any', '512x512 maskable']));
+  expect(manifest.icons.map((i: { sizes: string; purpose: string }) => `${i.sizes} ${i.purpose}`)).toEqual(
+    expect.arrayContaining(['192x192 any', '512x512 any', '512x512 maskable']),
+  );
   for (const icon of manifest.icons as { src: string; type: string }[]) {
     const r = await page.request.get(icon.src);
     expect(r.status()).toBe(200);

@@ -27,8 +27,9 @@ test('an administrator runs a week of reminders and sees it settle; the member s
 
   // The mail in the outbox carries its own link; opening it and confirming turns reminders off.
   const res = await page.request.get('/api/outbox?limit=200');
-  const mail = ((await res.json()).items as { to: string[]; subject: string; text: string }[])
-    .find((m) => m.to.includes('member@candlewise.test') && m.subject.includes('week of 10 May 2027'))!;
+  const mail = ((await res.json()).items as { to: string[]; subject: string; text: string }[]).find(
+    (m) => m.to.includes('member@candlewise.test') && m.subject.includes('week of 10 May 2027'),
+  )!;
   expect(mail.text).toContain('Pinch or shorten candles');
   const link = new URL(/https?:\/\/\S+\/unsubscribe\?token=\S+/.exec(mail.text)![0]);
 

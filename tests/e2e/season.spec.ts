@@ -11,7 +11,10 @@ test('a member imports a record, reads a treeâ€™s timeline and marks this weekâ€
   await new SignInPage(page).withPassword('member2@candlewise.test');
 
   const year = new Date().getUTCFullYear() - 1;
-  const csv = ['date,tmin,tmax', ...Array.from({ length: 30 }, (_, i) => `${year}-04-${String(i + 1).padStart(2, '0')},${(2 + i / 5).toFixed(1)},${(11 + i / 4).toFixed(1)}`)].join('\n');
+  const csv = [
+    'date,tmin,tmax',
+    ...Array.from({ length: 30 }, (_, i) => `${year}-04-${String(i + 1).padStart(2, '0')},${(2 + i / 5).toFixed(1)},${(11 + i / 4).toFixed(1)}`),
+  ].join('\n');
   await page.goto('/season');
   await page.getByLabel('My own').check();
   await page.getByTestId('record-file').setInputFiles({ name: 'garden.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
@@ -26,7 +29,18 @@ test('a member imports a record, reads a treeâ€™s timeline and marks this weekâ€
 
   const name = `Timeline Scots ${Date.now()}`;
   const created = await page.request.post('/api/trees', {
-    data: { name, speciesSlug: 'pinus-sylvestris', stageNotes: '', containerShape: null, containerLengthCm: null, containerWidthCm: null, acquiredOn: null, collectedFromWild: false, collectedOn: null, notes: '' },
+    data: {
+      name,
+      speciesSlug: 'pinus-sylvestris',
+      stageNotes: '',
+      containerShape: null,
+      containerLengthCm: null,
+      containerWidthCm: null,
+      acquiredOn: null,
+      collectedFromWild: false,
+      collectedOn: null,
+      notes: '',
+    },
   });
   expect(created.status()).toBe(201);
   const id = (await created.json()).tree.id as string;

@@ -24,7 +24,10 @@ test('a member adds a tree, uploads a photo and sees it on the tree; a refused f
   await page.screenshot({ path: screenshotPath('tree-form-desktop'), fullPage: true });
   await form.getByRole('button', { name: 'Add tree' }).click();
   await expect(page.getByTestId('tree-name')).toHaveText('Weir-side mugo');
-  await expect(page.getByTestId('ask-about-tree')).toHaveAttribute('href', new RegExp(`/ask\\?tree=[^&]+&species=pinus-mugo&shape=rectangle&lengthCm=40&widthCm=30&collected=1&collectedOn=${collectedOn}$`));
+  await expect(page.getByTestId('ask-about-tree')).toHaveAttribute(
+    'href',
+    new RegExp(`/ask\\?tree=[^&]+&species=pinus-mugo&shape=rectangle&lengthCm=40&widthCm=30&collected=1&collectedOn=${collectedOn}$`),
+  );
   await expect(page.getByTestId('season-timeline')).toContainText('Recovery stage');
 
   // Two files at once: the disguised HTML is refused by the server, the photo arrives.

@@ -16,12 +16,15 @@ async function targetsAtLeast44(page: Page, where = 'main, header') {
   const small = await page.evaluate((sel) => {
     const out: string[] = [];
     for (const root of document.querySelectorAll(sel)) {
-      for (const el of root.querySelectorAll<HTMLElement>('button, a[href], summary, select, input:not([type=radio]):not([type=checkbox]), textarea, label:has(input[type=radio]), label:has(input[type=checkbox])')) {
+      for (const el of root.querySelectorAll<HTMLElement>(
+        'button, a[href], summary, select, input:not([type=radio]):not([type=checkbox]), textarea, label:has(input[type=radio]), label:has(input[type=checkbox])',
+      )) {
         const r = el.getBoundingClientRect();
         if (r.width === 0 || r.height === 0) continue; // not shown
         const style = getComputedStyle(el);
         if (style.visibility === 'hidden') continue;
-        if (r.width < 43.5 || r.height < 43.5) out.push(`${el.tagName.toLowerCase()} "${(el.textContent ?? '').trim().slice(0, 40)}" ${Math.round(r.width)}×${Math.round(r.height)}`);
+        if (r.width < 43.5 || r.height < 43.5)
+          out.push(`${el.tagName.toLowerCase()} "${(el.textContent ?? '').trim().slice(0, 40)}" ${Math.round(r.width)}×${Math.round(r.height)}`);
       }
     }
     return out;
@@ -134,7 +137,11 @@ test.describe('the wizard flow on a phone', () => {
     await page.getByLabel('Date you looked at the tree').fill('2027-05-10');
     await ask.next();
     await ask.expectStep('answer');
-    const term = page.getByTestId('answer-action').getByTestId('term').filter({ hasText: /candle/i }).first();
+    const term = page
+      .getByTestId('answer-action')
+      .getByTestId('term')
+      .filter({ hasText: /candle/i })
+      .first();
     await expect(term).toHaveAttribute('aria-expanded', 'false');
     await term.click();
     await expect(term).toHaveAttribute('aria-expanded', 'true');
@@ -185,7 +192,10 @@ test.describe('the wizard flow on a phone', () => {
 
     await page.goto('/trees');
     await page.getByRole('link', { name: 'Weir-side Scots' }).click();
-    await page.getByRole('link', { name: /Ask about this tree/ }).first().click();
+    await page
+      .getByRole('link', { name: /Ask about this tree/ })
+      .first()
+      .click();
     await expect(page.getByTestId('ask-loading')).toHaveCount(0);
     // The tree is picked and its species known: straight to health.
     await ask.expectStep('health');

@@ -198,7 +198,12 @@ describe('cross-site requests', () => {
       expect(r.status).toBe(403);
       expect(r.body.error.code).toBe('forbidden:origin');
     }
-    const same = await admin.json('/api/settings', 'PUT', { clubName: 'Riverside Pine Study Group', hemisphere: 'north', defaultLatitude: 45.5 }, { origin: base });
+    const same = await admin.json(
+      '/api/settings',
+      'PUT',
+      { clubName: 'Riverside Pine Study Group', hemisphere: 'north', defaultLatitude: 45.5 },
+      { origin: base },
+    );
     expect(same.status).toBe(200);
   });
 });

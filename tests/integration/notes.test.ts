@@ -15,8 +15,14 @@ let privateAnswer: string;
 
 async function saveAnswer(c: Client, visibility: 'private' | 'club') {
   const r = await c.json('/api/answers', 'POST', {
-    species: 'pinus-sylvestris', branching: 'tertiary', date: '2026-05-02', hemisphere: 'north',
-    shoot: 'candle-extending', position: 'beyond-silhouette', health: 'strong', visibility,
+    species: 'pinus-sylvestris',
+    branching: 'tertiary',
+    date: '2026-05-02',
+    hemisphere: 'north',
+    shoot: 'candle-extending',
+    position: 'beyond-silhouette',
+    health: 'strong',
+    visibility,
   });
   expect(r.status).toBe(201);
   return r.body.id as string;
@@ -128,7 +134,11 @@ describe('notes: links, previews and backlinks', () => {
     expect(ids).toContain(SHARED_ANSWER);
     expect(ids).not.toContain(privateAnswer);
     // Enough to tell lookalike answers apart: the member, the tree and when it was saved.
-    expect(body.items.find((a: { id: string }) => a.id === SHARED_ANSWER)).toMatchObject({ askerName: 'Wren Alder', treeName: 'Weir-side Scots', savedAt: expect.stringMatching(/^\d{4}-\d\d-\d\dT\d\d:\d\d/) });
+    expect(body.items.find((a: { id: string }) => a.id === SHARED_ANSWER)).toMatchObject({
+      askerName: 'Wren Alder',
+      treeName: 'Weir-side Scots',
+      savedAt: expect.stringMatching(/^\d{4}-\d\d-\d\dT\d\d:\d\d/),
+    });
     expect((await librarian.json('/api/notes/linkable-answers?from=2026-13-01', 'GET')).status).toBe(400);
   });
 

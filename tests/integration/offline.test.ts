@@ -6,8 +6,12 @@ import { Client, signedIn } from '../support/http-client';
 const base = inject('baseUrl');
 
 const body = {
-  species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending',
-  position: 'beyond-silhouette', health: 'average',
+  species: 'pinus-sylvestris',
+  branching: 'tertiary',
+  date: '2027-05-10',
+  shoot: 'candle-extending',
+  position: 'beyond-silhouette',
+  health: 'average',
 };
 const key = () => randomBytes(16).toString('hex');
 
@@ -30,7 +34,13 @@ describe('saving an answer worked out on the phone', () => {
     const member = await signedIn(base, 'member@candlewise.test');
     const server = (await member.json('/api/wizard/evaluate', 'POST', body)).body;
     // A phone with an older copy of the species data that came to another answer.
-    const phoneResult = { ...server, action: 'wait', headline: 'Wait: nothing to do now', speciesRevision: server.speciesRevision - 1, reasons: server.reasons.slice(0, 1) };
+    const phoneResult = {
+      ...server,
+      action: 'wait',
+      headline: 'Wait: nothing to do now',
+      speciesRevision: server.speciesRevision - 1,
+      reasons: server.reasons.slice(0, 1),
+    };
     const k = key();
     const first = await member.json('/api/answers', 'POST', { ...body, phoneResult }, { 'Idempotency-Key': k });
     expect(first.status).toBe(201);

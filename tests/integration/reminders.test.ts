@@ -14,7 +14,11 @@ let admin: Client;
 let librarian: Client;
 let bare: Account;
 
-interface Mail { to: string[]; subject: string; text: string | null }
+interface Mail {
+  to: string[];
+  subject: string;
+  text: string | null;
+}
 
 async function outbox(): Promise<Mail[]> {
   const { body } = await admin.json('/api/outbox?limit=200', 'GET');

@@ -12,9 +12,22 @@ describe('POST /api/season/degree-days', () => {
 
   it('sums by the simple average method, public and stateless', async () => {
     // source: Alberta Wheat Commission (2019) inputs 23/8 °C base 5 → 10.5; Canola Council of Canada 20/10 base 0 → 15
-    const r = await post({ base: 5, days: [{ date: '2027-03-01', tmin: 8, tmax: 23 }, { date: '2027-03-02', tmin: -4, tmax: 3 }] });
+    const r = await post({
+      base: 5,
+      days: [
+        { date: '2027-03-01', tmin: 8, tmax: 23 },
+        { date: '2027-03-02', tmin: -4, tmax: 3 },
+      ],
+    });
     expect(r.status).toBe(200);
-    expect(r.body).toEqual({ base: 5, total: 10.5, cumulative: [{ date: '2027-03-01', gdd: 10.5 }, { date: '2027-03-02', gdd: 10.5 }] });
+    expect(r.body).toEqual({
+      base: 5,
+      total: 10.5,
+      cumulative: [
+        { date: '2027-03-01', gdd: 10.5 },
+        { date: '2027-03-02', gdd: 10.5 },
+      ],
+    });
     expect((await post({ base: 0, days: [{ date: '2027-03-01', tmin: 10, tmax: 20 }] })).body.total).toBe(15);
   });
 
@@ -56,8 +69,16 @@ describe('temperature records, plans and calendars', () => {
   it('a member’s tree gets a plan from the engine, an observation re-anchors it, and a calendar file', async () => {
     const a = await signedIn(base, 'member@candlewise.test');
     const created = await a.json('/api/trees', 'POST', {
-      name: 'Season Scots', speciesSlug: 'pinus-sylvestris', stageNotes: '', containerShape: null, containerLengthCm: null,
-      containerWidthCm: null, acquiredOn: null, collectedFromWild: false, collectedOn: null, notes: '',
+      name: 'Season Scots',
+      speciesSlug: 'pinus-sylvestris',
+      stageNotes: '',
+      containerShape: null,
+      containerLengthCm: null,
+      containerWidthCm: null,
+      acquiredOn: null,
+      collectedFromWild: false,
+      collectedOn: null,
+      notes: '',
     });
     expect(created.status).toBe(201);
     const id = created.body.tree.id;

@@ -19,7 +19,10 @@ async function all(client: Client, query: string, limit: number): Promise<Item[]
   const out: Item[] = [];
   let cursor: string | null = null;
   for (let guard = 0; guard < 200; guard++) {
-    const r: { status: number; body: { items: Item[]; nextCursor: string | null } } = await client.json(`/api/species?${query}&limit=${limit}${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`, 'GET');
+    const r: { status: number; body: { items: Item[]; nextCursor: string | null } } = await client.json(
+      `/api/species?${query}&limit=${limit}${cursor ? `&cursor=${encodeURIComponent(cursor)}` : ''}`,
+      'GET',
+    );
     expect(r.status).toBe(200);
     out.push(...r.body.items);
     cursor = r.body.nextCursor;
@@ -28,7 +31,20 @@ async function all(client: Client, query: string, limit: number): Promise<Item[]
   throw new Error('paging did not end');
 }
 
-const queries = ['black pine japanese', 'pine white japanese', 'japanese black', 'abies', 'red pine', 'white pine', 'sylvestrus', 'mugho', 'scotch', 'pnus mugo', 'pine', 'jap bla'];
+const queries = [
+  'black pine japanese',
+  'pine white japanese',
+  'japanese black',
+  'abies',
+  'red pine',
+  'white pine',
+  'sylvestrus',
+  'mugho',
+  'scotch',
+  'pnus mugo',
+  'pine',
+  'jap bla',
+];
 
 describe('species search API', () => {
   it('returns exactly the shared ranking’s order for every query', async () => {
@@ -37,8 +53,14 @@ describe('species search API', () => {
     for (const q of queries) {
       const api = await all(anon, `q=${encodeURIComponent(q)}`, 100);
       const local = searchSpecies(everything, q);
-      expect(api.map((i) => i.slug), q).toEqual(local.map((h) => h.item.slug));
-      expect(api.map((i) => i.score), q).toEqual(local.map((h) => h.score));
+      expect(
+        api.map((i) => i.slug),
+        q,
+      ).toEqual(local.map((h) => h.item.slug));
+      expect(
+        api.map((i) => i.score),
+        q,
+      ).toEqual(local.map((h) => h.score));
     }
   });
 
@@ -64,8 +86,11 @@ describe('species search API', () => {
 
   it('says in the result which name a query matched', async () => {
     // Other files of the run copy Scots pine under new names, so look the species up in the results.
-    const find = async (q: string, slug: string) => ((await anon.json(`/api/species?q=${encodeURIComponent(q)}`, 'GET')).body.items as Item[]).find((i) => i.slug === slug);
-    expect(await find('scotch', 'pinus-sylvestris')).toMatchObject({ match: { text: 'Scotch pine', kind: 'common', note: 'matched Scotch pine (common name)' } });
+    const find = async (q: string, slug: string) =>
+      ((await anon.json(`/api/species?q=${encodeURIComponent(q)}`, 'GET')).body.items as Item[]).find((i) => i.slug === slug);
+    expect(await find('scotch', 'pinus-sylvestris')).toMatchObject({
+      match: { text: 'Scotch pine', kind: 'common', note: 'matched Scotch pine (common name)' },
+    });
     expect((await find('sylvestrus', 'pinus-sylvestris'))?.match?.note).toMatch(/^matched .*sylvestris .*spelt differently/);
     expect((await find('pinus mugo', 'pinus-mugo'))?.match?.note).toBeNull();
   });
@@ -92,7 +117,13 @@ describe('species search API', () => {
 
   it('finds a species as soon as it is published: the cached search index is dropped on publish', async () => {
     const source = await anon.json('/api/species/pinus-sylvestris', 'GET');
-    const record = { ...structuredClone(source.body.species.record), slug: 'pinus-quaesita', botanicalName: 'Pinus quaesita', commonNames: ['Seekers pine'], synonyms: [] };
+    const record = {
+      ...structuredClone(source.body.species.record),
+      slug: 'pinus-quaesita',
+      botanicalName: 'Pinus quaesita',
+      commonNames: ['Seekers pine'],
+      synonyms: [],
+    };
     // Warm the cache for visitors, then write a draft: still not found.
     expect((await anon.json('/api/species?q=quaesita', 'GET')).body.items).toHaveLength(0);
     const draft = await editor.json('/api/species', 'POST', { record, body: 'Notes', summary: 'draft', publish: false });
@@ -105,7 +136,9 @@ describe('species search API', () => {
     expect((await anon.json('/api/species?q=seekers%20pine', 'GET')).body.items[0].slug).toBe('pinus-quaesita');
     // A renamed publish is searchable by the new name at once, and no longer by the old.
     const renamed = { ...record, commonNames: ['Finders pine'] };
-    expect((await editor.json('/api/species/pinus-quaesita', 'PATCH', { record: renamed, body: 'Notes', summary: 'rename', publish: true, baseRevision: 2 })).status).toBe(200);
+    expect(
+      (await editor.json('/api/species/pinus-quaesita', 'PATCH', { record: renamed, body: 'Notes', summary: 'rename', publish: true, baseRevision: 2 })).status,
+    ).toBe(200);
     const after = await anon.json('/api/species?q=finders', 'GET');
     expect(after.body.items[0].slug).toBe('pinus-quaesita');
     expect((await anon.json('/api/species?q=seekers', 'GET')).body.items.map((i: Item) => i.slug)).not.toContain('pinus-quaesita');
@@ -123,7 +156,10 @@ describe('species import with a mixed batch', () => {
       .replace(/synonyms:\n(  - .*\n)+/, 'synonyms: []\n');
     expect(good).toContain('Batch pine');
     expect(good).not.toContain('mugho');
-    const badEnum = good.replace('slug: pinus-mixta', 'slug: pinus-errata').replace('botanicalName: Pinus mixta', 'botanicalName: Pinus errata').replace(/group: pine/, 'group: palm');
+    const badEnum = good
+      .replace('slug: pinus-mixta', 'slug: pinus-errata')
+      .replace('botanicalName: Pinus mixta', 'botanicalName: Pinus errata')
+      .replace(/group: pine/, 'group: palm');
     const badYaml = good.replace('slug: pinus-mixta', 'slug: pinus-fracta').replace(/group: pine/, 'group: pine: tree');
     const files = [
       { name: 'good.md', content: good },
@@ -143,8 +179,12 @@ describe('species import with a mixed batch', () => {
     expect(r.body.results.map((x: { slug: string }) => x.slug)).toEqual(['pinus-mixta']);
     expect(r.body.skipped.map((x: { name: string }) => x.name)).toEqual(['enum.md', 'yaml.md']);
     const [enumFile, yamlFile] = r.body.skipped;
-    expect(enumFile.fields.group).toEqual(['Group: “palm” is not one of the choices. Use pine, larch, spruce, fir, douglas-fir, hemlock, cedar, juniper, cypress, redwood, yew, podocarp or other.']);
-    expect(yamlFile.fields.frontMatter[0]).toMatch(/^Line \d+, column \d+: Nested mappings are not allowed in compact mappings\. The line reads: group: pine: tree$/);
+    expect(enumFile.fields.group).toEqual([
+      'Group: “palm” is not one of the choices. Use pine, larch, spruce, fir, douglas-fir, hemlock, cedar, juniper, cypress, redwood, yew, podocarp or other.',
+    ]);
+    expect(yamlFile.fields.frontMatter[0]).toMatch(
+      /^Line \d+, column \d+: Nested mappings are not allowed in compact mappings\. The line reads: group: pine: tree$/,
+    );
     expect(JSON.stringify(r.body.skipped)).not.toMatch(/Invalid option|expected one of/);
 
     expect((await anon.json('/api/species/pinus-mixta', 'GET')).status).toBe(200);

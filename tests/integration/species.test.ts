@@ -32,14 +32,23 @@ describe('GET /api/species', () => {
     const r = await anon.json('/api/species?limit=5', 'GET');
     expect(r.status).toBe(200);
     expect(r.body.items).toHaveLength(5);
-    expect(r.body.items[0]).toMatchObject({ slug: expect.any(String), botanicalName: expect.any(String), commonNames: expect.any(Array), needleLengthMm: { min: expect.any(Number), max: expect.any(Number) } });
+    expect(r.body.items[0]).toMatchObject({
+      slug: expect.any(String),
+      botanicalName: expect.any(String),
+      commonNames: expect.any(Array),
+      needleLengthMm: { min: expect.any(Number), max: expect.any(Number) },
+    });
     expect(typeof r.body.nextCursor).toBe('string');
     const next = await anon.json(`/api/species?limit=5&cursor=${encodeURIComponent(r.body.nextCursor)}`, 'GET');
     expect(next.body.items[0].slug).not.toBe(r.body.items[4].slug);
   });
 
   it('ranks misspellings first and filters', async () => {
-    for (const [q, slug] of [['sylvestrus', 'pinus-sylvestris'], ['mugho', 'pinus-mugo'], ['scotch', 'pinus-sylvestris']]) {
+    for (const [q, slug] of [
+      ['sylvestrus', 'pinus-sylvestris'],
+      ['mugho', 'pinus-mugo'],
+      ['scotch', 'pinus-sylvestris'],
+    ]) {
       const r = await anon.json(`/api/species?q=${q}`, 'GET');
       expect(r.body.items[0].slug).toBe(slug);
     }
@@ -89,7 +98,12 @@ describe('editing species', () => {
 
   it('lets an editor create a draft that members cannot see, then publish it', async () => {
     const s = await publishedRecord('pinus-sylvestris');
-    const created = await editor.json('/api/species', 'POST', { record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'), body: '# Draft notes', summary: 'new', publish: false });
+    const created = await editor.json('/api/species', 'POST', {
+      record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'),
+      body: '# Draft notes',
+      summary: 'new',
+      publish: false,
+    });
     expect(created.status).toBe(201);
     expect(created.body.species).toMatchObject({ revision: 1, status: 'draft', publishedRevision: null });
 
@@ -99,16 +113,33 @@ describe('editing species', () => {
     expect((await member.json('/api/species/pinus-probatio/revisions', 'GET')).status).toBe(404);
     expect((await editor.json('/api/species/pinus-probatio', 'GET')).body.species.status).toBe('draft');
 
-    const dup = await editor.json('/api/species', 'POST', { record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'), body: '', summary: '', publish: false });
+    const dup = await editor.json('/api/species', 'POST', {
+      record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'),
+      body: '',
+      summary: '',
+      publish: false,
+    });
     expect(dup.status).toBe(409);
 
-    const pub = await editor.json('/api/species/pinus-probatio', 'PATCH', { record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'), body: 'Published notes', summary: 'publish', publish: true, baseRevision: 1 });
+    const pub = await editor.json('/api/species/pinus-probatio', 'PATCH', {
+      record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'),
+      body: 'Published notes',
+      summary: 'publish',
+      publish: true,
+      baseRevision: 1,
+    });
     expect(pub.status).toBe(200);
     expect(pub.body.species).toMatchObject({ revision: 2, publishedRevision: 2 });
     expect((await member.json('/api/species/pinus-probatio', 'GET')).body.species.body).toContain('Published notes');
 
     // A later draft stays invisible: members still get revision 2.
-    const draft = await admin.json('/api/species/pinus-probatio', 'PATCH', { record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'), body: 'Secret draft', summary: 'draft', publish: false, baseRevision: 2 });
+    const draft = await admin.json('/api/species/pinus-probatio', 'PATCH', {
+      record: newRecord(s.record, 'pinus-probatio', 'Pinus probatio'),
+      body: 'Secret draft',
+      summary: 'draft',
+      publish: false,
+      baseRevision: 2,
+    });
     expect(draft.status).toBe(200);
     const seen = await member.json('/api/species/pinus-probatio', 'GET');
     expect(seen.body.species).toMatchObject({ revision: 2 });
@@ -135,16 +166,32 @@ describe('editing species', () => {
     const s = await publishedRecord('pinus-sylvestris');
     const rec = structuredClone(s.record);
     rec.traits.flushHabit.value = 'triple';
-    const r = await editor.json('/api/species/pinus-sylvestris', 'PATCH', { record: rec, body: '', summary: '', publish: true, baseRevision: s.latestRevision });
+    const r = await editor.json('/api/species/pinus-sylvestris', 'PATCH', {
+      record: rec,
+      body: '',
+      summary: '',
+      publish: true,
+      baseRevision: s.latestRevision,
+    });
     expect(r.status).toBe(422);
     expect(r.body.error.fields['record.traits.flushHabit.value']).toBeDefined();
     const noCitation = structuredClone(s.record);
     delete noCitation.traits.needleLengthMm.citation;
-    const r2 = await editor.json('/api/species', 'POST', { record: newRecord(noCitation, 'pinus-sinefonte', 'Pinus sinefonte'), body: '', summary: '', publish: true });
+    const r2 = await editor.json('/api/species', 'POST', {
+      record: newRecord(noCitation, 'pinus-sinefonte', 'Pinus sinefonte'),
+      body: '',
+      summary: '',
+      publish: true,
+    });
     expect(r2.status).toBe(422);
     expect(r2.body.error.fields['record.traits.needleLengthMm.citation']).toBeDefined();
     // The same record saves as a draft: only publishing needs every citation.
-    const draftSave = await editor.json('/api/species', 'POST', { record: newRecord(noCitation, 'pinus-sinefonte', 'Pinus sinefonte'), body: '', summary: '', publish: false });
+    const draftSave = await editor.json('/api/species', 'POST', {
+      record: newRecord(noCitation, 'pinus-sinefonte', 'Pinus sinefonte'),
+      body: '',
+      summary: '',
+      publish: false,
+    });
     expect(draftSave.status).toBe(201);
     const publishLater = await editor.json('/api/species/pinus-sinefonte/revert', 'POST', { toRevision: 1, baseRevision: 1, publish: true });
     expect(publishLater.status).toBe(422);
@@ -152,12 +199,24 @@ describe('editing species', () => {
     const noBase = await editor.json('/api/species/pinus-sylvestris', 'PATCH', { record: s.record, body: '', summary: '', publish: true });
     expect(noBase.status).toBe(422);
     expect(noBase.body.error.fields.baseRevision).toBeDefined();
-    const renamed = await editor.json('/api/species/pinus-sylvestris', 'PATCH', { record: { ...s.record, slug: 'pinus-alia' }, body: '', summary: '', publish: true, baseRevision: s.latestRevision });
+    const renamed = await editor.json('/api/species/pinus-sylvestris', 'PATCH', {
+      record: { ...s.record, slug: 'pinus-alia' },
+      body: '',
+      summary: '',
+      publish: true,
+      baseRevision: s.latestRevision,
+    });
     expect(renamed.status).toBe(422);
     expect(renamed.body.error.fields['record.slug']).toBeDefined();
     const raw = await editor.request('/api/species', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{not json' });
     expect(raw.status).toBe(400);
-    const unknown = await editor.json('/api/species/pinus-nonexistens', 'PATCH', { record: { ...s.record, slug: 'pinus-nonexistens' }, body: '', summary: '', publish: true, baseRevision: 1 });
+    const unknown = await editor.json('/api/species/pinus-nonexistens', 'PATCH', {
+      record: { ...s.record, slug: 'pinus-nonexistens' },
+      body: '',
+      summary: '',
+      publish: true,
+      baseRevision: 1,
+    });
     expect(unknown.status).toBe(404);
   });
 
@@ -188,13 +247,24 @@ describe('import and export', () => {
     const text = await (await anon.get('/api/species/pinus-mugo/export')).text();
     const fresh = text.replace('slug: pinus-mugo', 'slug: pinus-importata').replace('botanicalName: Pinus mugo', 'botanicalName: Pinus importata');
     const broken = fresh.replace('slug: pinus-importata', 'slug: Bad Slug');
-    const prev = await editor.json('/api/species/import/preview', 'POST', { files: [{ name: 'good.md', content: fresh }, { name: 'bad.md', content: broken }] });
+    const prev = await editor.json('/api/species/import/preview', 'POST', {
+      files: [
+        { name: 'good.md', content: fresh },
+        { name: 'bad.md', content: broken },
+      ],
+    });
     expect(prev.status).toBe(200);
     expect(prev.body.files[0]).toMatchObject({ ok: true, action: 'create' });
     expect(prev.body.files[1].ok).toBe(false);
     expect(prev.body.files[1].fields.slug).toBeDefined();
     expect((await editor.json('/api/species/pinus-importata', 'GET')).status).toBe(404);
-    const bad = await editor.json('/api/species/import', 'POST', { files: [{ name: 'good.md', content: fresh }, { name: 'bad.md', content: broken }], publish: true });
+    const bad = await editor.json('/api/species/import', 'POST', {
+      files: [
+        { name: 'good.md', content: fresh },
+        { name: 'bad.md', content: broken },
+      ],
+      publish: true,
+    });
     expect(bad.status).toBe(422);
     expect((await editor.json('/api/species/pinus-importata', 'GET')).status).toBe(404);
     const ok = await editor.json('/api/species/import', 'POST', { files: [{ name: 'good.md', content: fresh }], publish: true });

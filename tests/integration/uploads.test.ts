@@ -10,7 +10,11 @@ const uploadsDir = path.join(inject('dataDir'), 'uploads');
 
 function filesUnder(dir: string): string[] {
   if (!fs.existsSync(dir)) return [];
-  return fs.readdirSync(dir, { recursive: true, withFileTypes: true }).filter((d) => d.isFile()).map((d) => path.join(d.parentPath, d.name)).sort();
+  return fs
+    .readdirSync(dir, { recursive: true, withFileTypes: true })
+    .filter((d) => d.isFile())
+    .map((d) => path.join(d.parentPath, d.name))
+    .sort();
 }
 
 async function upload(c: Client, fields: Record<string, string>, file: Buffer, name: string, type: string) {
@@ -24,8 +28,16 @@ async function upload(c: Client, fields: Record<string, string>, file: Buffer, n
 
 async function newTree(c: Client, name: string) {
   const { status, body } = await c.json('/api/trees', 'POST', {
-    name, speciesSlug: 'pinus-mugo', stageNotes: '', containerShape: 'round', containerLengthCm: 30, containerWidthCm: null,
-    acquiredOn: null, collectedFromWild: false, collectedOn: null, notes: '',
+    name,
+    speciesSlug: 'pinus-mugo',
+    stageNotes: '',
+    containerShape: 'round',
+    containerLengthCm: 30,
+    containerWidthCm: null,
+    acquiredOn: null,
+    collectedFromWild: false,
+    collectedOn: null,
+    notes: '',
   });
   expect(status).toBe(201);
   return body.tree.id as string;
@@ -137,7 +149,7 @@ describe('photo uploads', () => {
     expect((await member.get(`/api/uploads/${body.photo.id}`)).status).toBe(404);
   });
 
-  it('answer photos follow the answer: club members see a shared answer\'s photos, only the asker adds or removes', async () => {
+  it("answer photos follow the answer: club members see a shared answer's photos, only the asker adds or removes", async () => {
     const shared = 'demoAnsWeirScots1'; // seeded: the demo member's answer, shared with the club
     const up = await upload(member, { answerId: shared }, await jpegPhoto(), 'a.jpg', 'image/jpeg');
     expect(up.status).toBe(201);
@@ -149,8 +161,13 @@ describe('photo uploads', () => {
     expect((await other.json(`/api/uploads/${id}`, 'DELETE')).status).toBe(403);
 
     const saved = await member.json('/api/answers', 'POST', {
-      species: 'pinus-mugo', branching: 'secondary', date: '2026-06-01', hemisphere: 'north',
-      shoot: 'needles-hardened', health: 'strong', backBuds: true,
+      species: 'pinus-mugo',
+      branching: 'secondary',
+      date: '2026-06-01',
+      hemisphere: 'north',
+      shoot: 'needles-hardened',
+      health: 'strong',
+      backBuds: true,
     });
     expect(saved.status).toBe(201);
     const privateId = saved.body.id;

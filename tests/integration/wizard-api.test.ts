@@ -5,18 +5,32 @@ const base = inject('baseUrl');
 const anon = () => new Client(base);
 
 const body = {
-  species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending',
-  position: 'beyond-silhouette', health: 'average',
+  species: 'pinus-sylvestris',
+  branching: 'tertiary',
+  date: '2027-05-10',
+  shoot: 'candle-extending',
+  position: 'beyond-silhouette',
+  health: 'average',
 };
 
 describe('POST /api/wizard/evaluate', () => {
   it('answers the contract fields for a public request', async () => {
     // source: University of Wisconsin Plant Disease Diagnostics Clinic (2015): remove half to two-thirds of a strong candle
-    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, candleStrength: 'strong', container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
+    const r = await anon().json('/api/wizard/evaluate', 'POST', {
+      ...body,
+      candleStrength: 'strong',
+      container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 },
+    });
     expect(r.status).toBe(200);
     expect(r.body).toMatchObject({
-      action: 'pinch', stage: 'refinement', season: 'spring', keepNeedlePairs: null, keepNeedleBundles: null,
-      candleKeep: { min: 0.33, max: 0.5 }, engineVersion: '2.0.0', speciesRevision: expect.any(Number),
+      action: 'pinch',
+      stage: 'refinement',
+      season: 'spring',
+      keepNeedlePairs: null,
+      keepNeedleBundles: null,
+      candleKeep: { min: 0.33, max: 0.5 },
+      engineVersion: '2.0.0',
+      speciesRevision: expect.any(Number),
     });
     expect(r.body.howTo.length).toBeGreaterThan(1);
     expect(r.body.terms.map((t: { term: string }) => t.term)).toContain('candle');
@@ -43,15 +57,35 @@ describe('POST /api/wizard/evaluate', () => {
 
   it('decandles a strong double-flush pine in early summer', async () => {
     // common practice, no published source
-    const r = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20', shoot: 'needles-opening' });
+    const r = await anon().json('/api/wizard/evaluate', 'POST', {
+      ...body,
+      species: 'pinus-thunbergii',
+      health: 'strong',
+      date: '2027-06-20',
+      shoot: 'needles-opening',
+    });
     expect(r.body.action).toBe('decandle');
     // …but not while its candles are still extending, nor when it was repotted this year.
     const extending = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20' });
     expect(extending.body.action).toBe('let-grow');
-    const repotted = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20', shoot: 'needles-opening', repottedThisYear: true });
+    const repotted = await anon().json('/api/wizard/evaluate', 'POST', {
+      ...body,
+      species: 'pinus-thunbergii',
+      health: 'strong',
+      date: '2027-06-20',
+      shoot: 'needles-opening',
+      repottedThisYear: true,
+    });
     expect(repotted.body.action).not.toBe('decandle');
     // A low heat sum holds it back (our own threshold).
-    const cold = await anon().json('/api/wizard/evaluate', 'POST', { ...body, species: 'pinus-thunbergii', health: 'strong', date: '2027-06-20', shoot: 'needles-opening', degreeDays: 120 });
+    const cold = await anon().json('/api/wizard/evaluate', 'POST', {
+      ...body,
+      species: 'pinus-thunbergii',
+      health: 'strong',
+      date: '2027-06-20',
+      shoot: 'needles-opening',
+      degreeDays: 120,
+    });
     expect(cold.body.action).toBe('wait');
   });
 
@@ -116,7 +150,14 @@ describe('the answer log', () => {
     expect(r.body.action).toBe('pinch');
     const g = await m.json(`/api/answers/${r.body.id}`, 'GET');
     expect(g.status).toBe(200);
-    expect(g.body).toMatchObject({ id: r.body.id, visibility: 'private', note: 'south pad', isOwner: true, askerName: 'Wren Alder', speciesSlug: 'pinus-sylvestris' });
+    expect(g.body).toMatchObject({
+      id: r.body.id,
+      visibility: 'private',
+      note: 'south pad',
+      isOwner: true,
+      askerName: 'Wren Alder',
+      speciesSlug: 'pinus-sylvestris',
+    });
     expect(g.body.input).toMatchObject(body);
     expect(g.body.result.reasons.length).toBeGreaterThan(0);
     expect(JSON.stringify(g.body)).not.toMatch(/candlewise\.test|passwordHash/);
@@ -136,7 +177,18 @@ describe('the answer log', () => {
     const other = await signedIn(base, 'member2@candlewise.test');
     const mine = (await m.json('/api/trees', 'GET')).body;
     const tree = (Array.isArray(mine) ? mine : mine.items).find((t: { name: string }) => t.name === 'Weir-side Scots');
-    const theirs = await other.json('/api/trees', 'POST', { name: 'Not yours', speciesSlug: 'pinus-sylvestris', stageNotes: '', containerShape: null, containerLengthCm: null, containerWidthCm: null, acquiredOn: null, collectedFromWild: false, collectedOn: null, notes: '' });
+    const theirs = await other.json('/api/trees', 'POST', {
+      name: 'Not yours',
+      speciesSlug: 'pinus-sylvestris',
+      stageNotes: '',
+      containerShape: null,
+      containerLengthCm: null,
+      containerWidthCm: null,
+      acquiredOn: null,
+      collectedFromWild: false,
+      collectedOn: null,
+      notes: '',
+    });
     expect(theirs.status).toBe(201);
     const saved = await m.json('/api/answers', 'POST', body);
     const path = `/api/answers/${saved.body.id}`;

@@ -72,11 +72,19 @@ export async function startApp(opts: { databaseUrl?: string; env?: Record<string
     SIGNUPS_PER_CLIENT_PER_HOUR: '100000',
     ...opts.env,
   };
-  const seed = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['--conditions=react-server', 'scripts/db-seed.ts'], { cwd: root, env: env as NodeJS.ProcessEnv, encoding: 'utf8' });
+  const seed = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['--conditions=react-server', 'scripts/db-seed.ts'], {
+    cwd: root,
+    env: env as NodeJS.ProcessEnv,
+    encoding: 'utf8',
+  });
   if (seed.status !== 0) throw new Error(`seed failed: ${seed.stderr}${seed.stdout}`);
 
   let output = '';
-  const child = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(port)], { cwd: root, env: env as NodeJS.ProcessEnv, stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(port)], {
+    cwd: root,
+    env: env as NodeJS.ProcessEnv,
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   child.stdout!.on('data', (d) => (output += d));
   child.stderr!.on('data', (d) => (output += d));
   const url = `http://127.0.0.1:${port}`;

@@ -1,8 +1,25 @@
 import { sql } from 'drizzle-orm';
 import type { Db } from '@/db/open';
 import {
-  answers, digestSends, jobs, noteLinks, notes, outboxMessages, pendingSignUps, photos, reminderRunMembers, reminderRuns, reminderSends, species, speciesRevisions,
-  temperatureDays, temperatureRecords, treeObservations, trees, users, verificationTokens,
+  answers,
+  digestSends,
+  jobs,
+  noteLinks,
+  notes,
+  outboxMessages,
+  pendingSignUps,
+  photos,
+  reminderRunMembers,
+  reminderRuns,
+  reminderSends,
+  species,
+  speciesRevisions,
+  temperatureDays,
+  temperatureRecords,
+  treeObservations,
+  trees,
+  users,
+  verificationTokens,
 } from '@/db/schema';
 
 // Rows in every table, with the values a dump most easily gets wrong: quotes, backslashes,
@@ -22,18 +39,49 @@ export async function fillAwkwardRows(db: Db) {
   const [sp] = await db
     .insert(species)
     .values({
-      slug: 'pinus-awkwardii', botanicalName: 'Pinus awkwardii', commonNames: [awkward, 'plain'], synonyms: [],
-      genus: 'Pinus', group: 'two-needle', flushHabit: 'single', vigour: 'high', needleMinMm: 0.1, needleMaxMm: 123.456,
-      publishedRevision: 2, latestRevision: 2,
+      slug: 'pinus-awkwardii',
+      botanicalName: 'Pinus awkwardii',
+      commonNames: [awkward, 'plain'],
+      synonyms: [],
+      genus: 'Pinus',
+      group: 'two-needle',
+      flushHabit: 'single',
+      vigour: 'high',
+      needleMinMm: 0.1,
+      needleMaxMm: 123.456,
+      publishedRevision: 2,
+      latestRevision: 2,
     })
     .returning({ id: species.id });
   await db.insert(speciesRevisions).values([
-    { speciesId: sp.id, revision: 1, status: 'draft', data: anyJson({ nested: { a: [1, 2.5, null, true] }, s: awkward }), body: awkward, editorId: 'u-awkward-2' },
-    { speciesId: sp.id, revision: 2, status: 'published', data: anyJson({ unicode: '\u00e9\u4e2d', empty: {} }), body: '# Heading\n\n|a|b|\n|-|-|', summary: 'two' },
+    {
+      speciesId: sp.id,
+      revision: 1,
+      status: 'draft',
+      data: anyJson({ nested: { a: [1, 2.5, null, true] }, s: awkward }),
+      body: awkward,
+      editorId: 'u-awkward-2',
+    },
+    {
+      speciesId: sp.id,
+      revision: 2,
+      status: 'published',
+      data: anyJson({ unicode: '\u00e9\u4e2d', empty: {} }),
+      body: '# Heading\n\n|a|b|\n|-|-|',
+      summary: 'two',
+    },
   ]);
   await db.insert(trees).values({
-    id: 'tree-awkward', ownerId: 'u-awkward-1', name: awkward, speciesSlug: 'pinus-awkwardii', containerShape: 'oval',
-    containerLengthCm: 33.3, containerWidthCm: null, acquiredOn: '2019-02-28', collectedFromWild: true, collectedOn: '2018-10-01',
+    id: 'tree-awkward',
+    ownerId: 'u-awkward-1',
+    name: awkward,
+    speciesSlug: 'pinus-awkwardii',
+    containerShape: 'oval',
+    containerLengthCm: 33.3,
+    containerWidthCm: null,
+    acquiredOn: '2019-02-28',
+    collectedFromWild: true,
+    collectedOn: '2018-10-01',
   });
   await db.insert(temperatureRecords).values({ id: 'rec-awkward', scopeKey: 'club', ownerId: null, name: awkward });
   await db.insert(temperatureDays).values([
@@ -43,20 +91,49 @@ export async function fillAwkwardRows(db: Db) {
   await db.insert(treeObservations).values({ treeId: 'tree-awkward', ownerId: 'u-awkward-1', observedOn: '2027-04-20', shoot: 'candle-extending', task: null });
   await db.insert(answers).values([
     {
-      id: 'ans-awkward-1', userId: 'u-awkward-1', treeId: 'tree-awkward', speciesSlug: 'pinus-awkwardii', speciesRevision: 2,
-      engineVersion: '1.0.0', action: 'decandle', stage: 'refinement', season: 'summer', observedOn: '2026-06-21',
-      input: anyJson({ quote: "it's", backslash: 'a\\b', list: [{ x: 1 }] }), result: anyJson({ reasons: [awkward] }), note: awkward,
-      visibility: 'club', createdAt: new Date('2026-06-21T10:11:12.345Z'),
+      id: 'ans-awkward-1',
+      userId: 'u-awkward-1',
+      treeId: 'tree-awkward',
+      speciesSlug: 'pinus-awkwardii',
+      speciesRevision: 2,
+      engineVersion: '1.0.0',
+      action: 'decandle',
+      stage: 'refinement',
+      season: 'summer',
+      observedOn: '2026-06-21',
+      input: anyJson({ quote: "it's", backslash: 'a\\b', list: [{ x: 1 }] }),
+      result: anyJson({ reasons: [awkward] }),
+      note: awkward,
+      visibility: 'club',
+      createdAt: new Date('2026-06-21T10:11:12.345Z'),
     },
     {
-      id: 'ans-awkward-2', userId: 'u-awkward-1', treeId: null, speciesSlug: 'pinus-awkwardii', speciesRevision: 1,
-      engineVersion: '1.0.0', action: 'wait', stage: 'development', season: 'winter', observedOn: '2025-12-31',
-      input: anyJson({}), result: anyJson({}), createdAt: new Date('2025-12-31T23:59:59.999Z'),
+      id: 'ans-awkward-2',
+      userId: 'u-awkward-1',
+      treeId: null,
+      speciesSlug: 'pinus-awkwardii',
+      speciesRevision: 1,
+      engineVersion: '1.0.0',
+      action: 'wait',
+      stage: 'development',
+      season: 'winter',
+      observedOn: '2025-12-31',
+      input: anyJson({}),
+      result: anyJson({}),
+      createdAt: new Date('2025-12-31T23:59:59.999Z'),
     },
   ]);
   const [note] = await db
     .insert(notes)
-    .values({ slug: 'awkward-meeting', title: awkward, meetingDate: '2026-03-14', body: `See [answer](/answers/ans-awkward-1)\n\n${awkward}`, status: 'published', authorId: 'u-awkward-2', publishedAt: new Date('2026-03-15T08:00:00.000Z') })
+    .values({
+      slug: 'awkward-meeting',
+      title: awkward,
+      meetingDate: '2026-03-14',
+      body: `See [answer](/answers/ans-awkward-1)\n\n${awkward}`,
+      status: 'published',
+      authorId: 'u-awkward-2',
+      publishedAt: new Date('2026-03-15T08:00:00.000Z'),
+    })
     .returning({ id: notes.id });
   await db.insert(noteLinks).values([
     { noteId: note.id, targetType: 'answer', targetId: 'ans-awkward-1', meetingDate: '2026-03-14', published: true },
@@ -64,8 +141,16 @@ export async function fillAwkwardRows(db: Db) {
   ]);
   await db.insert(digestSends).values({ noteId: note.id, senderId: 'u-awkward-2', recipients: 3 });
   await db.insert(photos).values({
-    id: 'photo-awkward', ownerId: 'u-awkward-1', answerId: 'ans-awkward-1', treeId: 'tree-awkward', storageKey: 'ab/cd.webp',
-    thumbKey: 'ab/cd-thumb.webp', mime: 'image/webp', width: 1200, height: 800, bytes: 123456,
+    id: 'photo-awkward',
+    ownerId: 'u-awkward-1',
+    answerId: 'ans-awkward-1',
+    treeId: 'tree-awkward',
+    storageKey: 'ab/cd.webp',
+    thumbKey: 'ab/cd-thumb.webp',
+    mime: 'image/webp',
+    width: 1200,
+    height: 800,
+    bytes: 123456,
   });
   // Serial ids with a gap: the restored sequence must continue after the highest id, not fill it.
   for (let i = 0; i < 3; i++) {
@@ -73,9 +158,25 @@ export async function fillAwkwardRows(db: Db) {
   }
   await db.delete(outboxMessages).where(sql`${outboxMessages.id} = (select min(id) from outbox_messages)`);
   await db.insert(verificationTokens).values({ identifier: 'awkward1@candlewise.test', token: 'hashed-token', expires: new Date('2026-12-02T06:00:00.000Z') });
-  await db.insert(pendingSignUps).values({ tokenHash: 'a'.repeat(64), email: 'awkward3@candlewise.test', name: awkward, passwordHash: '$2b$10$notarealhashnotarealhashnotarealhashnotarealhashnot', expiresAt: new Date('2026-12-03T06:00:00.123Z') });
-  await db.insert(jobs).values({ queue: 'reminders.member', payload: { runId: 'run-awkward', note: awkward, nested: { a: [1, null] } }, lastError: awkward, dedupeKey: awkward });
+  await db.insert(pendingSignUps).values({
+    tokenHash: 'a'.repeat(64),
+    email: 'awkward3@candlewise.test',
+    name: awkward,
+    passwordHash: '$2b$10$notarealhashnotarealhashnotarealhashnotarealhashnot',
+    expiresAt: new Date('2026-12-03T06:00:00.123Z'),
+  });
+  await db
+    .insert(jobs)
+    .values({ queue: 'reminders.member', payload: { runId: 'run-awkward', note: awkward, nested: { a: [1, null] } }, lastError: awkward, dedupeKey: awkward });
   await db.insert(reminderRuns).values({ id: 'run-awkward', weekOf: '2027-05-10', requestedBy: 'u-awkward-2', total: 1 });
   await db.insert(reminderRunMembers).values({ runId: 'run-awkward', userId: 'u-awkward-1', outcome: 'sent', reason: null });
-  await db.insert(reminderSends).values({ weekOf: '2027-05-10', userId: 'u-awkward-1', runId: 'run-awkward', state: 'sent', messageId: '<reminder.awkward@candlewise.test>', tasks: 2, reason: awkward });
+  await db.insert(reminderSends).values({
+    weekOf: '2027-05-10',
+    userId: 'u-awkward-1',
+    runId: 'run-awkward',
+    state: 'sent',
+    messageId: '<reminder.awkward@candlewise.test>',
+    tasks: 2,
+    reason: awkward,
+  });
 }

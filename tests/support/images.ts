@@ -16,11 +16,15 @@ export async function jpegPhoto(width = 640, height = 480, opts: { gps?: boolean
 }
 
 export async function pngPhoto(width = 320, height = 240): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 4, background: { r: 200, g: 180, b: 120, alpha: 1 } } }).png().toBuffer();
+  return sharp({ create: { width, height, channels: 4, background: { r: 200, g: 180, b: 120, alpha: 1 } } })
+    .png()
+    .toBuffer();
 }
 
 export async function webpPhoto(width = 320, height = 240): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 3, background: { r: 90, g: 70, b: 50 } } }).webp().toBuffer();
+  return sharp({ create: { width, height, channels: 3, background: { r: 90, g: 70, b: 50 } } })
+    .webp()
+    .toBuffer();
 }
 
 export const svgWithScript = Buffer.from(
@@ -60,7 +64,12 @@ export function hugePixelPng(width = 20000, height = 20000): Buffer {
   ihdr[9] = 0; // greyscale
   const rowBytes = 1 + Math.ceil(width / 8);
   const idat = zlib.deflateSync(Buffer.alloc(rowBytes * height), { level: 9 });
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', idat), chunk('IEND', Buffer.alloc(0))]);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk('IHDR', ihdr),
+    chunk('IDAT', idat),
+    chunk('IEND', Buffer.alloc(0)),
+  ]);
 }
 
 /** A JPEG followed by HTML: a polyglot that a browser sniffing the bytes might run. */

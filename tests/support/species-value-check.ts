@@ -44,11 +44,13 @@ export function checkSpeciesValues(records: SpeciesRecord[], table: ValueRow[]):
   }
   for (const rec of records) {
     for (const [trait, t] of Object.entries(rec.traits)) {
-      if (t.provenance === 'published' && !covered.has(`${rec.slug} ${trait}`)) problems.push({ slug: rec.slug, trait, message: 'a published value has no row in the table' });
+      if (t.provenance === 'published' && !covered.has(`${rec.slug} ${trait}`))
+        problems.push({ slug: rec.slug, trait, message: 'a published value has no row in the table' });
     }
     if (!covered.has(`${rec.slug} flushHabit`)) problems.push({ slug: rec.slug, trait: 'flushHabit', message: 'the flush habit has no row in the table' });
     for (const c of rec.cautions) {
-      if (c.provenance === 'published' && /planted out/.test(c.text) && !covered.has(`${rec.slug} wildingCaution`)) problems.push({ slug: rec.slug, trait: 'wildingCaution', message: 'a published caution has no row in the table' });
+      if (c.provenance === 'published' && /planted out/.test(c.text) && !covered.has(`${rec.slug} wildingCaution`))
+        problems.push({ slug: rec.slug, trait: 'wildingCaution', message: 'a published caution has no row in the table' });
     }
   }
   return problems;

@@ -34,7 +34,11 @@ export const constructs: Record<string, (p: string) => string> = {
   'reference definition': (p) => `[follow][r]\n\n[r]: ${oneLine(p)}`,
   image: (p) => `![${oneLine(p)}](${oneLine(p)})`,
   'table cell': (p) => `| species | note |\n|---|---|\n| ${oneLine(p)} | ${oneLine(p)} |`,
-  blockquote: (p) => p.split('\n').map((l) => `> ${l}`).join('\n'),
+  blockquote: (p) =>
+    p
+      .split('\n')
+      .map((l) => `> ${l}`)
+      .join('\n'),
   'inline code': (p) => `\`${oneLine(p).replace(/`/g, '')}\``,
   'fenced code': (p) => `\`\`\`html\n${p}\n\`\`\``,
   heading: (p) => `## ${oneLine(p)}`,

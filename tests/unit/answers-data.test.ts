@@ -1,7 +1,17 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { memoryDb } from '../support/memory-db';
 import { trees } from '@/db/schema';
-import { getAnswer, getAnswerPreview, listOwnAnswers, newAnswerId, phoneDiffers, rerunAnswer, saveAnswer, saveAnswerOnce, updateAnswer } from '@/lib/data/answers';
+import {
+  getAnswer,
+  getAnswerPreview,
+  listOwnAnswers,
+  newAnswerId,
+  phoneDiffers,
+  rerunAnswer,
+  saveAnswer,
+  saveAnswerOnce,
+  updateAnswer,
+} from '@/lib/data/answers';
 import { getTreePrefill } from '@/lib/data/wizard';
 import type { SessionUser } from '@/lib/auth/session';
 
@@ -10,8 +20,12 @@ let wren: SessionUser;
 let tamsin: SessionUser;
 
 const body = {
-  species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending',
-  position: 'beyond-silhouette', health: 'average',
+  species: 'pinus-sylvestris',
+  branching: 'tertiary',
+  date: '2027-05-10',
+  shoot: 'candle-extending',
+  position: 'beyond-silhouette',
+  health: 'average',
 } as const;
 
 beforeAll(async () => {
@@ -36,7 +50,12 @@ describe('answer previews for links', () => {
     expect(await getAnswerPreview('AAAAAAAAAAAA', wren)).toBeNull();
     expect(await getAnswerPreview(priv.id, wren)).toMatchObject({ id: priv.id, action: 'pinch', speciesName: 'Scots pine', askerName: 'Wren Alder' });
     expect(await getAnswerPreview(shared.id, tamsin)).toEqual({
-      id: shared.id, action: 'pinch', speciesSlug: 'pinus-sylvestris', speciesName: 'Scots pine', observedOn: '2027-05-10', askerName: 'Wren Alder',
+      id: shared.id,
+      action: 'pinch',
+      speciesSlug: 'pinus-sylvestris',
+      speciesName: 'Scots pine',
+      observedOn: '2027-05-10',
+      askerName: 'Wren Alder',
     });
   });
 
@@ -50,9 +69,23 @@ describe('answer previews for links', () => {
   });
 
   it('links an answer to the owner’s tree and pre-fills the wizard from it', async () => {
-    await mem.db.insert(trees).values({ id: 'tree-w1', ownerId: wren.id, name: 'Riverside Scots', speciesSlug: 'pinus-sylvestris', containerShape: 'oval', containerLengthCm: 40, containerWidthCm: 30, collectedFromWild: true, collectedOn: '2026-04-01' });
+    await mem.db.insert(trees).values({
+      id: 'tree-w1',
+      ownerId: wren.id,
+      name: 'Riverside Scots',
+      speciesSlug: 'pinus-sylvestris',
+      containerShape: 'oval',
+      containerLengthCm: 40,
+      containerWidthCm: 30,
+      collectedFromWild: true,
+      collectedOn: '2026-04-01',
+    });
     expect(await getTreePrefill('tree-w1', tamsin)).toBeNull();
-    expect(await getTreePrefill('tree-w1', wren, '2027-05-10')).toMatchObject({ speciesSlug: 'pinus-sylvestris', container: { shape: 'oval', lengthCm: 40, widthCm: 30 }, recentlyCollected: true });
+    expect(await getTreePrefill('tree-w1', wren, '2027-05-10')).toMatchObject({
+      speciesSlug: 'pinus-sylvestris',
+      container: { shape: 'oval', lengthCm: 40, widthCm: 30 },
+      recentlyCollected: true,
+    });
     expect((await getTreePrefill('tree-w1', wren, '2029-05-10'))!.recentlyCollected).toBe(false);
     await expect(saveAnswer(tamsin, { ...body, treeId: 'tree-w1' })).rejects.toMatchObject({ status: 400 });
     const a = await saveAnswer(wren, { ...body, treeId: 'tree-w1' });
@@ -87,17 +120,20 @@ describe('saving with an idempotency key', () => {
 
   it('lets only one of two racing copies in', async () => {
     const key = 'phone-key-0000000003';
-    const [x, y] = await Promise.all([
-      saveAnswerOnce(wren, { ...body }, { idempotencyKey: key }),
-      saveAnswerOnce(wren, { ...body }, { idempotencyKey: key }),
-    ]);
+    const [x, y] = await Promise.all([saveAnswerOnce(wren, { ...body }, { idempotencyKey: key }), saveAnswerOnce(wren, { ...body }, { idempotencyKey: key })]);
     expect(x.answer.id).toBe(y.answer.id);
     expect([x.created, y.created].sort()).toEqual([false, true]);
   });
 
   it('keeps the phone result only when it differs from the server', async () => {
     const server = await saveAnswer(wren, { ...body });
-    const same = { action: server.action, headline: server.headline, engineVersion: server.engineVersion, speciesRevision: server.speciesRevision, reasons: server.reasons.map((r) => ({ ...r })) };
+    const same = {
+      action: server.action,
+      headline: server.headline,
+      engineVersion: server.engineVersion,
+      speciesRevision: server.speciesRevision,
+      reasons: server.reasons.map((r) => ({ ...r })),
+    };
     const agreed = await saveAnswer(wren, { ...body, phoneResult: same });
     expect((await getAnswer(agreed.id, wren))!.phoneResult).toBeNull();
     const older = { ...same, action: 'wait' as const, speciesRevision: server.speciesRevision - 1 };

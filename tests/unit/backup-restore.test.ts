@@ -83,7 +83,10 @@ describe('backup and restore', () => {
     const h = await openDatabase({ pgliteDir: target });
     try {
       const before = await h.db.select({ id: outboxMessages.id }).from(outboxMessages);
-      const [next] = await h.db.insert(outboxMessages).values({ envelopeFrom: 'x@candlewise.test', envelopeTo: [], raw: 'x' }).returning({ id: outboxMessages.id });
+      const [next] = await h.db
+        .insert(outboxMessages)
+        .values({ envelopeFrom: 'x@candlewise.test', envelopeTo: [], raw: 'x' })
+        .returning({ id: outboxMessages.id });
       expect(next.id).toBe(Math.max(...before.map((b) => b.id)) + 1);
     } finally {
       await h.close();

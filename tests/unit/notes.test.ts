@@ -22,8 +22,18 @@ const MISSING = 'missingAns001';
 
 async function addAnswer(id: string, userId: string, visibility: 'private' | 'club', observedOn = '2027-05-10', action = 'pinch') {
   await mem.db.insert(answers).values({
-    id, userId, speciesSlug: 'pinus-sylvestris', speciesRevision: 1, engineVersion: 'test', action, stage: 'refinement',
-    season: 'spring', observedOn, input: { species: 'pinus-sylvestris' } as WizardInput, result: { speciesName: 'Scots pine' } as WizardResult, visibility,
+    id,
+    userId,
+    speciesSlug: 'pinus-sylvestris',
+    speciesRevision: 1,
+    engineVersion: 'test',
+    action,
+    stage: 'refinement',
+    season: 'spring',
+    observedOn,
+    input: { species: 'pinus-sylvestris' } as WizardInput,
+    result: { speciesName: 'Scots pine' } as WizardResult,
+    visibility,
   });
 }
 
@@ -37,7 +47,10 @@ beforeAll(async () => {
 });
 
 const rejectsWith = async (p: Promise<unknown>, status: number) => {
-  const e = await p.then(() => null, (x) => x);
+  const e = await p.then(
+    () => null,
+    (x) => x,
+  );
   expect(e).toBeInstanceOf(AppError);
   expect((e as AppError).status).toBe(status);
 };
@@ -113,11 +126,16 @@ describe('notes and backlinks', () => {
 
   it('rewrites note_links on every save; backlinks list published notes only', async () => {
     const n = await createNote(librarian, {
-      title: 'Pinching night', meetingDate: '2027-05-20', status: 'draft',
+      title: 'Pinching night',
+      meetingDate: '2027-05-20',
+      status: 'draft',
       body: `We looked at [this](/answers/${SHARED}) and [Scots](/species/pinus-sylvestris), twice: [again](/species/pinus-sylvestris).`,
     });
     const rows = await mem.db.select({ t: noteLinks.targetType, id: noteLinks.targetId }).from(noteLinks).where(eq(noteLinks.noteId, n.id));
-    expect(rows.sort((a, b) => a.t.localeCompare(b.t))).toEqual([{ t: 'answer', id: SHARED }, { t: 'species', id: 'pinus-sylvestris' }]);
+    expect(rows.sort((a, b) => a.t.localeCompare(b.t))).toEqual([
+      { t: 'answer', id: SHARED },
+      { t: 'species', id: 'pinus-sylvestris' },
+    ]);
     // A draft is not yet "discussed at a meeting".
     expect(await getBacklinks('answer', SHARED)).toEqual([]);
 

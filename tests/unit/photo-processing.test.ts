@@ -8,7 +8,15 @@ import { LocalDirStorage } from '@/lib/storage/local';
 import { isStorageKey, newStorageKey } from '@/lib/storage/types';
 import { AppError } from '@/lib/errors';
 import {
-  gifJsPolyglot, htmlRenamedPng, hugePixelPng, jpegHtmlPolyglot, jpegPhoto, oversizeJpegLike, pngPhoto, svgWithScript, webpPhoto,
+  gifJsPolyglot,
+  htmlRenamedPng,
+  hugePixelPng,
+  jpegHtmlPolyglot,
+  jpegPhoto,
+  oversizeJpegLike,
+  pngPhoto,
+  svgWithScript,
+  webpPhoto,
 } from '../support/images';
 
 async function rejection(p: Promise<unknown>): Promise<AppError> {

@@ -49,7 +49,10 @@ async function drain() {
   for (let i = 0; i < 200 && (await runOneJob({ backoffBaseMs: 60_000 })); i++);
 }
 const remindersTo = (email: string) =>
-  handle.db.select().from(outboxMessages).where(and(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([email])}::jsonb`, sql`${outboxMessages.subject} like '%your trees in the week of%'`));
+  handle.db
+    .select()
+    .from(outboxMessages)
+    .where(and(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([email])}::jsonb`, sql`${outboxMessages.subject} like '%your trees in the week of%'`));
 
 describe('the job queue', () => {
   it('keys jobs, leases a claimed job, retries with growing backoff and gives up after the last attempt', async () => {
@@ -67,7 +70,10 @@ describe('the job queue', () => {
     expect(s.runAt.getTime()).toBeGreaterThanOrEqual(before + 1000);
     expect(await claimJob(['test.queue'], 60_000)).toBeNull(); // not due yet
 
-    await handle.db.update(jobs).set({ runAt: new Date(Date.now() - 1) }).where(eq(jobs.id, id));
+    await handle.db
+      .update(jobs)
+      .set({ runAt: new Date(Date.now() - 1) })
+      .where(eq(jobs.id, id));
     const again = (await claimJob(['test.queue'], 60_000))!;
     expect(again.attempts).toBe(2);
     expect(await failJob(again, 'still down')).toBe('failed');
@@ -94,7 +100,10 @@ describe('the meeting-note digest through the queue', () => {
     const [lib] = await handle.db.select().from(users).where(eq(users.email, 'librarian@candlewise.test'));
     const slug = '2026-04-18-spring-candle-evening';
     const digestsTo = (email: string) =>
-      handle.db.select().from(outboxMessages).where(and(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([email])}::jsonb`, sql`${outboxMessages.subject} like '%meeting of%'`));
+      handle.db
+        .select()
+        .from(outboxMessages)
+        .where(and(sql`${outboxMessages.envelopeTo} @> ${JSON.stringify([email])}::jsonb`, sql`${outboxMessages.subject} like '%meeting of%'`));
     const optedIn = await handle.db.select({ email: users.email }).from(users).where(eq(users.digestOptIn, true));
     expect(optedIn.length).toBeGreaterThanOrEqual(3);
 
@@ -108,7 +117,10 @@ describe('the meeting-note digest through the queue', () => {
     for (const { email } of optedIn) expect(await digestsTo(email), email).toHaveLength(1);
 
     // A crash after the hand-over, before the job was marked done: the retry is stored once.
-    await handle.db.update(jobs).set({ state: 'queued', runAt: new Date(Date.now() - 1) }).where(eq(jobs.queue, 'digest.member'));
+    await handle.db
+      .update(jobs)
+      .set({ state: 'queued', runAt: new Date(Date.now() - 1) })
+      .where(eq(jobs.queue, 'digest.member'));
     await drain();
     for (const { email } of optedIn) expect(await digestsTo(email), email).toHaveLength(1);
     expect(await digestsTo('member2@candlewise.test')).toHaveLength(0); // did not opt in
@@ -155,7 +167,10 @@ describe('weekly reminders', () => {
     // the member's job is due again.
     await handle.db.update(reminderSends).set({ state: 'sending' }).where(eq(reminderSends.runId, runId));
     await handle.db.update(reminderRunMembers).set({ outcome: null }).where(eq(reminderRunMembers.runId, runId));
-    await handle.db.update(jobs).set({ state: 'queued', runAt: new Date(Date.now() - 1) }).where(eq(jobs.dedupeKey, `reminder:${runId}:${member.id}`));
+    await handle.db
+      .update(jobs)
+      .set({ state: 'queued', runAt: new Date(Date.now() - 1) })
+      .where(eq(jobs.dedupeKey, `reminder:${runId}:${member.id}`));
     await drain();
     const mails = await remindersTo(member.email);
     expect(mails).toHaveLength(1);
@@ -167,7 +182,8 @@ describe('weekly reminders', () => {
 
   it('a failed hand-over is retried later, and then sent', async () => {
     let monday = '2027-04-05';
-    while ((await thisWeek(member, monday, 6)).length === 0 || monday === '2027-05-10') monday = mondayOf(new Date(Date.parse(`${monday}T00:00:00Z`) + 7 * 864e5).toISOString().slice(0, 10));
+    while ((await thisWeek(member, monday, 6)).length === 0 || monday === '2027-05-10')
+      monday = mondayOf(new Date(Date.parse(`${monday}T00:00:00Z`) + 7 * 864e5).toISOString().slice(0, 10));
     const g = globalThis as unknown as { __cwMail?: unknown };
     const working = g.__cwMail;
     g.__cwMail = nodemailer.createTransport('smtp://127.0.0.1:3434'); // nothing listens there
@@ -175,12 +191,18 @@ describe('weekly reminders', () => {
       const run = await startReminderRun(admin, monday);
       await drain();
       expect(await getReminderRun(admin, run.id)).toMatchObject({ total: 1, sent: 0, failed: 0, finished: false });
-      const [job] = await handle.db.select().from(jobs).where(eq(jobs.dedupeKey, `reminder:${run.id}:${member.id}`));
+      const [job] = await handle.db
+        .select()
+        .from(jobs)
+        .where(eq(jobs.dedupeKey, `reminder:${run.id}:${member.id}`));
       expect(job).toMatchObject({ state: 'queued', attempts: 1 });
       expect(job.lastError).toMatch(/ECONNREFUSED/);
       expect(job.runAt.getTime()).toBeGreaterThan(Date.now() + 30_000);
       g.__cwMail = working;
-      await handle.db.update(jobs).set({ runAt: new Date(Date.now() - 1) }).where(eq(jobs.id, job.id));
+      await handle.db
+        .update(jobs)
+        .set({ runAt: new Date(Date.now() - 1) })
+        .where(eq(jobs.id, job.id));
       await drain();
       expect(await getReminderRun(admin, run.id)).toMatchObject({ sent: 1, finished: true });
       expect(await remindersTo(member.email)).toHaveLength(2);

@@ -49,8 +49,18 @@ describe('revision diff in words', () => {
     expect(parts.filter((p) => p.kind === 'removed')).toEqual([]);
     expect(parts.filter((p) => p.kind === 'added').map((p) => p.value.trim())).toEqual(['late']);
     // Put back together, each side is exactly its text: bullets included, none lost or doubled.
-    expect(parts.filter((p) => p.kind !== 'added').map((p) => p.value).join('')).toBe(before);
-    expect(parts.filter((p) => p.kind !== 'removed').map((p) => p.value).join('')).toBe(after);
+    expect(
+      parts
+        .filter((p) => p.kind !== 'added')
+        .map((p) => p.value)
+        .join(''),
+    ).toBe(before);
+    expect(
+      parts
+        .filter((p) => p.kind !== 'removed')
+        .map((p) => p.value)
+        .join(''),
+    ).toBe(after);
   });
 
   it('an unchanged pair has no differences; identical content is recognised', () => {

@@ -22,7 +22,10 @@ describe('demo club record seeder', () => {
     const [member] = await mem.db.select({ id: users.id }).from(users).where(eq(users.email, 'member@candlewise.test'));
     const mine = await mem.db.select({ id: trees.id, name: trees.name }).from(trees).where(eq(trees.ownerId, member.id));
     expect(mine.map((t) => t.id).sort()).toEqual([demoTreeIds.mugo, demoTreeIds.scots].sort());
-    const [a] = await mem.db.select({ treeId: answers.treeId, visibility: answers.visibility, action: answers.action }).from(answers).where(eq(answers.id, demoAnswerId));
+    const [a] = await mem.db
+      .select({ treeId: answers.treeId, visibility: answers.visibility, action: answers.action })
+      .from(answers)
+      .where(eq(answers.id, demoAnswerId));
     // common practice, no published source: an extending candle beyond the silhouette in refinement is pinched
     expect(a).toEqual({ treeId: demoTreeIds.scots, visibility: 'club', action: 'pinch' });
   });

@@ -64,7 +64,13 @@ describe('editorial workflow', () => {
     const pub = await getSpeciesForViewer(editor, 'pinus-mugo');
     const record: SpeciesRecord = structuredClone(pub.record);
     record.commonNames = [...record.commonNames, 'Draft-only name'];
-    const draft = await updateSpecies(editor, 'pinus-mugo', { record, body: pub.body, summary: 'add a name', publish: false, baseRevision: pub.latestRevision });
+    const draft = await updateSpecies(editor, 'pinus-mugo', {
+      record,
+      body: pub.body,
+      summary: 'add a name',
+      publish: false,
+      baseRevision: pub.latestRevision,
+    });
     expect(draft).toMatchObject({ revision: 2, status: 'draft', publishedRevision: 1 });
 
     expect((await getSpeciesForViewer(member, 'pinus-mugo')).record.commonNames).not.toContain('Draft-only name');
@@ -100,7 +106,9 @@ describe('editorial workflow', () => {
     expect((await listSpecies(member, q({ q: 'inventa' }))).items.map((i) => i.slug)).not.toContain('pinus-inventa');
     expect((await listSpecies(editor, q({ q: 'inventa' }))).items[0]).toMatchObject({ slug: 'pinus-inventa', publishedRevision: null, hasDraft: true });
     await expect(createSpecies(editor, { record, body: '', summary: '', publish: false })).rejects.toMatchObject({ status: 409 });
-    await expect(updateSpecies(editor, 'pinus-inventa', { record: { ...record, slug: 'pinus-other' }, body: '', summary: '', publish: false, baseRevision: 1 })).rejects.toMatchObject({ status: 422 });
+    await expect(
+      updateSpecies(editor, 'pinus-inventa', { record: { ...record, slug: 'pinus-other' }, body: '', summary: '', publish: false, baseRevision: 1 }),
+    ).rejects.toMatchObject({ status: 422 });
   });
 
   it('previews an import without writing, then commits all or nothing', async () => {
@@ -115,7 +123,16 @@ describe('editorial workflow', () => {
     expect(preview[1].ok).toBe(false);
     expect(Object.keys(preview[1].fields!)).toContain('slug');
     await expect(getSpeciesForViewer(editor, 'pinus-importata')).rejects.toMatchObject({ status: 404 });
-    await expect(commitSpeciesImport(editor, { files: [{ name: 'a.md', content: fresh }, { name: 'b.md', content: broken }], summary: '', publish: true })).rejects.toMatchObject({ status: 422 });
+    await expect(
+      commitSpeciesImport(editor, {
+        files: [
+          { name: 'a.md', content: fresh },
+          { name: 'b.md', content: broken },
+        ],
+        summary: '',
+        publish: true,
+      }),
+    ).rejects.toMatchObject({ status: 422 });
     await expect(getSpeciesForViewer(editor, 'pinus-importata')).rejects.toMatchObject({ status: 404 });
     await commitSpeciesImport(editor, { files: [{ name: 'a.md', content: fresh }], summary: '', publish: true });
     expect((await getSpeciesForViewer(member, 'pinus-importata')).revision).toBe(1);

@@ -22,7 +22,9 @@ describe('species file messages', () => {
         .replace(/needlesPerFascicle:\n {4}value: \d+/, 'needlesPerFascicle:\n    value: 2.5'),
     );
     expect(Object.keys(f).sort()).toEqual(['genus', 'group', 'traits.flushHabit.value', 'traits.needlesPerFascicle.value']);
-    expect(f.group).toEqual(['Group: “palm” is not one of the choices. Use pine, larch, spruce, fir, douglas-fir, hemlock, cedar, juniper, cypress, redwood, yew, podocarp or other.']);
+    expect(f.group).toEqual([
+      'Group: “palm” is not one of the choices. Use pine, larch, spruce, fir, douglas-fir, hemlock, cedar, juniper, cypress, redwood, yew, podocarp or other.',
+    ]);
     expect(f['traits.flushHabit.value'][0]).toBe('Flush habit (trade), value: “triple” is not one of the choices. Use single, double or polycyclic.');
     expect(f.genus[0]).toBe('Genus is missing: add it as text.');
     expect(f['traits.needlesPerFascicle.value'][0]).toMatch(/^Needles per bundle, value: expected a whole number, found 2\.5\.$/);
@@ -41,7 +43,12 @@ describe('species file messages', () => {
     const f = fields(broken);
     expect(f.frontMatter.length).toBeGreaterThanOrEqual(2);
     const groupLine = lines.findIndex((l) => l.startsWith('group: pine: tree')) + 1;
-    expect(f.frontMatter.some((m) => m.startsWith(`Line ${groupLine}, column 8: Nested mappings are not allowed in compact mappings.`) && m.endsWith('The line reads: group: pine: tree'))).toBe(true);
+    expect(
+      f.frontMatter.some(
+        (m) =>
+          m.startsWith(`Line ${groupLine}, column 8: Nested mappings are not allowed in compact mappings.`) && m.endsWith('The line reads: group: pine: tree'),
+      ),
+    ).toBe(true);
     for (const m of f.frontMatter) {
       expect(m).toMatch(/^Line \d+, column \d+: .+\./);
       expect(m).not.toMatch(/\^|\n/); // no caret drawing, no cut-off block

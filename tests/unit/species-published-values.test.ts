@@ -35,7 +35,10 @@ describe('every shipped value against the source table', () => {
   });
 
   it('catches a five-needle pine given 2 needles', () => {
-    const problems = checkSpeciesValues(edit(copy(), 'pinus-parviflora', (r) => (r.traits.needlesPerFascicle.value = 2)), speciesValueTable);
+    const problems = checkSpeciesValues(
+      edit(copy(), 'pinus-parviflora', (r) => (r.traits.needlesPerFascicle.value = 2)),
+      speciesValueTable,
+    );
     expect(problems).toEqual([expect.objectContaining({ slug: 'pinus-parviflora', trait: 'needlesPerFascicle' })]);
     expect(problems[0].message).toMatch(/file says 2, its source says 5/);
   });
@@ -59,7 +62,9 @@ describe('every shipped value against the source table', () => {
     const recs = edit(copy(), 'pinus-sylvestris', (r) => (r.traits.needleLengthMm.citation = 'Flora of China vol. 4 (1999)'));
     edit(recs, 'pinus-mugo', (r) => Object.assign(r.traits.flushHabit, { provenance: 'published', citation: 'a made-up book' }));
     edit(recs, 'pinus-contorta', (r) => (r.cautions = r.cautions.filter((c) => !/planted out/.test(c.text))));
-    const found = checkSpeciesValues(recs, speciesValueTable).map((p) => `${p.slug} ${p.trait}`).sort();
+    const found = checkSpeciesValues(recs, speciesValueTable)
+      .map((p) => `${p.slug} ${p.trait}`)
+      .sort();
     expect(found).toEqual(['pinus-contorta wildingCaution', 'pinus-mugo flushHabit', 'pinus-sylvestris needleLengthMm']);
   });
 
@@ -72,7 +77,8 @@ describe('every shipped value against the source table', () => {
 
   it('wilding cautions with a source on the species known to spread where planted out', () => {
     const wild = speciesValueTable.filter(([, trait]) => trait === 'wildingCaution').map(([slug]) => slug);
-    for (const slug of ['pinus-mugo', 'pinus-contorta', 'larix-decidua', 'pinus-radiata', 'pseudotsuga-menziesii', 'pinus-uncinata']) expect(wild, slug).toContain(slug);
+    for (const slug of ['pinus-mugo', 'pinus-contorta', 'larix-decidua', 'pinus-radiata', 'pseudotsuga-menziesii', 'pinus-uncinata'])
+      expect(wild, slug).toContain(slug);
     for (const slug of wild) {
       const c = records.find((r) => r.slug === slug)!.cautions.find((x) => /planted out/.test(x.text))!;
       expect(c.text, slug).toMatch(/local rules/);
@@ -81,15 +87,24 @@ describe('every shipped value against the source table', () => {
 
   it('ambiguous group names sit on every species they name, and only there', () => {
     // "five-needle pine" names every pine with needles in fives.
-    const fives = records.filter((r) => r.genus === 'Pinus' && r.traits.needlesPerFascicle.value === 5).map((r) => r.slug).sort();
-    const named = records.filter((r) => [...r.commonNames, ...r.synonyms].some((n) => n.toLowerCase() === 'five-needle pine')).map((r) => r.slug).sort();
+    const fives = records
+      .filter((r) => r.genus === 'Pinus' && r.traits.needlesPerFascicle.value === 5)
+      .map((r) => r.slug)
+      .sort();
+    const named = records
+      .filter((r) => [...r.commonNames, ...r.synonyms].some((n) => n.toLowerCase() === 'five-needle pine'))
+      .map((r) => r.slug)
+      .sort();
     expect(named).toEqual(fives);
     expect(fives.length).toBeGreaterThanOrEqual(10);
     // "foxtail pine" is P. balfouriana, not the bristlecone.
     const foxtail = records.filter((r) => [...r.commonNames, ...r.synonyms].some((n) => /foxtail pine/i.test(n))).map((r) => r.slug);
     expect(foxtail).toEqual(['pinus-balfouriana']);
     // "red pine" names P. resinosa in North America and the Japanese and Chinese red pines.
-    const red = records.filter((r) => [...r.commonNames, ...r.synonyms].some((n) => n.toLowerCase() === 'red pine')).map((r) => r.slug).sort();
+    const red = records
+      .filter((r) => [...r.commonNames, ...r.synonyms].some((n) => n.toLowerCase() === 'red pine'))
+      .map((r) => r.slug)
+      .sort();
     expect(red).toEqual(['pinus-densiflora', 'pinus-resinosa', 'pinus-tabuliformis']);
   });
 });

@@ -9,7 +9,10 @@ const index = buildSpeciesIndex(items);
 const hits = (q: string) => searchSpecies(items, q, index);
 const top = (q: string) => hits(q)[0]?.item.slug;
 const slugsNaming = (name: string) =>
-  items.filter((s) => [...s.commonNames, ...s.synonyms].some((n) => n.toLowerCase() === name)).map((s) => s.slug).sort();
+  items
+    .filter((s) => [...s.commonNames, ...s.synonyms].some((n) => n.toLowerCase() === name))
+    .map((s) => s.slug)
+    .sort();
 
 describe('species search over the shipped files', () => {
   it('reads every shipped species', () => {
@@ -47,7 +50,10 @@ describe('species search over the shipped files', () => {
   });
 
   it('lists every fir first for the genus alone, before Picea abies', () => {
-    const firs = items.filter((s) => s.genus === 'Abies').map((s) => s.slug).sort();
+    const firs = items
+      .filter((s) => s.genus === 'Abies')
+      .map((s) => s.slug)
+      .sort();
     expect(firs.length).toBeGreaterThanOrEqual(3);
     const r = hits('abies').map((h) => h.item.slug);
     expect(r.slice(0, firs.length).sort()).toEqual(firs);

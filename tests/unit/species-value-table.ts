@@ -45,7 +45,12 @@ export const speciesValueTable: ValueRow[] = [
   ['juniperus-virginiana', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Larix decidua
   ['larix-decidua', 'needleLengthMm', { min: 25, max: 35 }, 'Kwantlen Polytechnic University plant database'],
-  ['larix-decidua', 'nativeRange', 'Mountains of central Europe, mainly the Alps and Carpathians.', 'Kwantlen Polytechnic University plant database (Europe); the detail from memory'],
+  [
+    'larix-decidua',
+    'nativeRange',
+    'Mountains of central Europe, mainly the Alps and Carpathians.',
+    'Kwantlen Polytechnic University plant database (Europe); the detail from memory',
+  ],
   ['larix-decidua', 'flushHabit', 'single', TRADE], // common practice, no published source
   ['larix-decidua', 'wildingCaution', true, 'New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
   // Larix kaempferi
@@ -74,7 +79,12 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-aristata', 'needlesPerFascicle', 5, 'Scion / NZ Forest Research Institute key to cultivated pines'],
   ['pinus-aristata', 'needleLengthMm', { min: 20, max: 40 }, 'Scion / NZ Forest Research Institute key to cultivated pines: 20–40 mm, persisting 10–17 years'],
   ['pinus-aristata', 'vigour', 'low', 'Southern Utah University tree tour: very slow'],
-  ['pinus-aristata', 'nativeRange', 'Colorado, northern New Mexico and the San Francisco Peaks of Arizona.', 'Royal Botanic Gardens Victoria, Horticultural Flora of South-eastern Australia'],
+  [
+    'pinus-aristata',
+    'nativeRange',
+    'Colorado, northern New Mexico and the San Francisco Peaks of Arizona.',
+    'Royal Botanic Gardens Victoria, Horticultural Flora of South-eastern Australia',
+  ],
   ['pinus-aristata', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Pinus balfouriana
   ['pinus-balfouriana', 'needlesPerFascicle', 5, 'Flora of North America vol. 2 (1993)'],
@@ -83,38 +93,73 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-banksiana', 'needlesPerFascicle', 2, 'Flora of North America vol. 2 (1993)'],
   ['pinus-banksiana', 'needleLengthMm', { min: 20, max: 50 }, 'Flora of North America vol. 2 (1993): 2–5 cm'],
   ['pinus-banksiana', 'hardinessZones', { min: 2, max: 6 }, 'Missouri Botanical Garden Plant Finder: USDA zones 2–6'],
-  ['pinus-banksiana', 'nativeRange', 'Across Canada from Alberta and the Northwest Territories to Nova Scotia, and the north-central and north-eastern United States.', 'Flora of North America vol. 2 (1993)'],
+  [
+    'pinus-banksiana',
+    'nativeRange',
+    'Across Canada from Alberta and the Northwest Territories to Nova Scotia, and the north-central and north-eastern United States.',
+    'Flora of North America vol. 2 (1993)',
+  ],
   ['pinus-banksiana', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
   // Pinus cembra
   ['pinus-cembra', 'needlesPerFascicle', 5, 'Oregon State University Landscape Plants'],
   ['pinus-cembra', 'needleLengthMm', { min: 50, max: 80 }, 'Oregon State University Landscape Plants: 5–8 cm, persisting 4–5 years'],
   ['pinus-cembra', 'vigour', 'low', 'Morton Arboretum tree pages: slow-growing'],
   ['pinus-cembra', 'hardinessZones', { min: 3, max: 7 }, 'Morton Arboretum tree pages: zones 3–7'],
-  ['pinus-cembra', 'nativeRange', 'Mountains of central Europe, mainly the Alps, with outlying stands in the Carpathians.', 'University of Minnesota trees site'],
+  [
+    'pinus-cembra',
+    'nativeRange',
+    'Mountains of central Europe, mainly the Alps, with outlying stands in the Carpathians.',
+    'University of Minnesota trees site',
+  ],
   ['pinus-cembra', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Pinus contorta
   ['pinus-contorta', 'shootHabit', 'multinodal', 'Shaw 1914, The Genus Pinus: spring-shoots multinodal'],
   ['pinus-contorta', 'needlesPerFascicle', 2, 'Flora of North America vol. 2 (1993)'],
   ['pinus-contorta', 'needleLengthMm', { min: 20, max: 70 }, 'Flora of North America vol. 2 (1993), var. contorta: 2–7 cm'],
-  ['pinus-contorta', 'nativeRange', 'Western North America, from about 64°N in Yukon to northern Baja California, east to the Black Hills.', 'Silvics of North America vol. 1 (Burns & Honkala 1990)'],
+  [
+    'pinus-contorta',
+    'nativeRange',
+    'Western North America, from about 64°N in Yukon to northern Baja California, east to the Black Hills.',
+    'Silvics of North America vol. 1 (Burns & Honkala 1990)',
+  ],
   ['pinus-contorta', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
   ['pinus-contorta', 'wildingCaution', true, 'New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
   // Pinus densiflora
   ['pinus-densiflora', 'needlesPerFascicle', 2, 'Flora of China vol. 4 (1999)'],
   ['pinus-densiflora', 'needleLengthMm', { min: 50, max: 150 }, 'Flora of China vol. 4 (1999): needles 5–15 cm'],
-  ['pinus-densiflora', 'nativeRange', 'Japan, Korea, north-eastern China (Shandong, Jiangsu) and the far south-east of Russia.', 'American Conifer Society species page'],
+  [
+    'pinus-densiflora',
+    'nativeRange',
+    'Japan, Korea, north-eastern China (Shandong, Jiangsu) and the far south-east of Russia.',
+    'American Conifer Society species page',
+  ],
   ['pinus-densiflora', 'flushHabit', 'double', TRADE], // common practice, no published source
   // Pinus flexilis
   ['pinus-flexilis', 'needlesPerFascicle', 5, 'Flora of North America vol. 2 (1993)'],
   ['pinus-flexilis', 'needleLengthMm', { min: 30, max: 70 }, 'Flora of North America vol. 2 (1993): leaves 5 per fascicle, 3–7 cm'],
   ['pinus-flexilis', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Pinus halepensis
-  ['pinus-halepensis', 'shootHabit', 'multinodal', 'Annals of Forest Science 2017, "Growth phenology in Pinus halepensis Mill." (doi:10.1007/s13595-017-0637-y)'],
+  [
+    'pinus-halepensis',
+    'shootHabit',
+    'multinodal',
+    'Annals of Forest Science 2017, "Growth phenology in Pinus halepensis Mill." (doi:10.1007/s13595-017-0637-y)',
+  ],
   ['pinus-halepensis', 'needlesPerFascicle', 2, 'Flora of New Zealand vol. 4 (Webb et al. 1988)'],
   ['pinus-halepensis', 'needleLengthMm', { min: 40, max: 120 }, 'Flora of New Zealand vol. 4 (Webb et al. 1988): (20–)40–120(–170) mm'],
-  ['pinus-halepensis', 'nativeRange', 'The Mediterranean region, from Morocco and Spain to Libya, Greece and Israel.', 'Oregon State University Landscape Plants'],
+  [
+    'pinus-halepensis',
+    'nativeRange',
+    'The Mediterranean region, from Morocco and Spain to Libya, Greece and Israel.',
+    'Oregon State University Landscape Plants',
+  ],
   ['pinus-halepensis', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
-  ['pinus-halepensis', 'wildingCaution', true, '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004)'],
+  [
+    'pinus-halepensis',
+    'wildingCaution',
+    true,
+    '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004)',
+  ],
   // Pinus heldreichii
   ['pinus-heldreichii', 'needlesPerFascicle', 2, 'Flora Europaea vol. 1 (Tutin et al. 1964)'],
   ['pinus-heldreichii', 'flushHabit', 'single', TRADE], // common practice, no published source
@@ -138,7 +183,12 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-mugo', 'needleLengthMm', { min: 30, max: 80 }, 'Shaw 1914, The Genus Pinus: leaves 3–8 cm'],
   ['pinus-mugo', 'vigour', 'moderate', 'Utah State University Extension Tree Browser: growth rate medium'],
   ['pinus-mugo', 'hardinessZones', { min: 2, max: 8 }, 'Utah State University Extension Tree Browser: USDA zones 2–8'],
-  ['pinus-mugo', 'nativeRange', 'Mountains of central and southern Europe, from the Pyrenees and Alps to the Carpathians and the northern Balkans.', 'Shaw 1914, The Genus Pinus; Kew World Checklist of Selected Plant Families'],
+  [
+    'pinus-mugo',
+    'nativeRange',
+    'Mountains of central and southern Europe, from the Pyrenees and Alps to the Carpathians and the northern Balkans.',
+    'Shaw 1914, The Genus Pinus; Kew World Checklist of Selected Plant Families',
+  ],
   ['pinus-mugo', 'flushHabit', 'single', TRADE], // common practice, no published source
   ['pinus-mugo', 'wildingCaution', true, 'New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
   // Pinus nigra
@@ -162,20 +212,40 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-pinaster', 'needlesPerFascicle', 2, 'Flora of New Zealand vol. 4 (Webb et al. 1988)'],
   ['pinus-pinaster', 'needleLengthMm', { min: 60, max: 170 }, 'Flora of New Zealand vol. 4 (Webb et al. 1988): 60–170(–260) mm'],
   ['pinus-pinaster', 'vigour', 'high', 'Bean, Trees and Shrubs Online: grows with great rapidity as a young tree'],
-  ['pinus-pinaster', 'nativeRange', 'Western Mediterranean and Atlantic Europe: Portugal to Greece and Algeria to Dalmatia, much extended by planting.', 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5)'],
+  [
+    'pinus-pinaster',
+    'nativeRange',
+    'Western Mediterranean and Atlantic Europe: Portugal to Greece and Algeria to Dalmatia, much extended by planting.',
+    'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5)',
+  ],
   ['pinus-pinaster', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
-  ['pinus-pinaster', 'wildingCaution', true, '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004)'],
+  [
+    'pinus-pinaster',
+    'wildingCaution',
+    true,
+    '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004)',
+  ],
   // Pinus pinea
   ['pinus-pinea', 'shootHabit', 'uninodal', 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5): spring-shoots uninodal'],
   ['pinus-pinea', 'needlesPerFascicle', 2, 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5)'],
   ['pinus-pinea', 'needleLengthMm', { min: 120, max: 200 }, 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5): leaves 12–20 cm'],
-  ['pinus-pinea', 'nativeRange', 'The Mediterranean basin, from Portugal to Syria; the natural range is blurred by ancient planting.', 'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5); Oregon State University Landscape Plants'],
+  [
+    'pinus-pinea',
+    'nativeRange',
+    'The Mediterranean basin, from Portugal to Syria; the natural range is blurred by ancient planting.',
+    'Shaw 1914, The Genus Pinus (Arnold Arboretum Publ. 5); Oregon State University Landscape Plants',
+  ],
   ['pinus-pinea', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Pinus ponderosa
   ['pinus-ponderosa', 'needlesPerFascicle', 3, 'Flora of New Zealand vol. 4 (Webb et al. 1988): 3(–4) per fascicle'],
   ['pinus-ponderosa', 'needleLengthMm', { min: 100, max: 250 }, 'Flora Europaea vol. 1 (Tutin et al. 1964): needles 10–25 cm'],
   ['pinus-ponderosa', 'hardinessZones', { min: 3, max: 7 }, 'Southern Utah University tree tour: zones 3–7'],
-  ['pinus-ponderosa', 'nativeRange', 'Western North America, from British Columbia south through the western United States.', 'Flora of North America vol. 2 (1993) (var. ponderosa)'],
+  [
+    'pinus-ponderosa',
+    'nativeRange',
+    'Western North America, from British Columbia south through the western United States.',
+    'Flora of North America vol. 2 (1993) (var. ponderosa)',
+  ],
   ['pinus-ponderosa', 'flushHabit', 'single', TRADE], // common practice, no published source
   ['pinus-ponderosa', 'wildingCaution', true, 'New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
   // Pinus pumila
@@ -184,14 +254,29 @@ export const speciesValueTable: ValueRow[] = [
   // Pinus radiata
   ['pinus-radiata', 'needlesPerFascicle', 3, 'Flora of North America vol. 2 (1993)'],
   ['pinus-radiata', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
-  ['pinus-radiata', 'wildingCaution', true, '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004); New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
+  [
+    'pinus-radiata',
+    'wildingCaution',
+    true,
+    '“Conifers as invasive aliens: a global survey and predictive framework”, Diversity and Distributions 10: 321–331 (2004); New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)',
+  ],
   // Pinus resinosa
   ['pinus-resinosa', 'needlesPerFascicle', 2, 'Flora of North America vol. 2 (1993)'],
   ['pinus-resinosa', 'needleLengthMm', { min: 80, max: 150 }, 'Wisconsin State Herbarium, Flora of Wisconsin key to Pinus: leaves 8–15 cm'],
   ['pinus-resinosa', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Pinus rigida
-  ['pinus-rigida', 'needlesPerFascicle', 3, 'Britton & Brown 1913, An Illustrated Flora of the Northern United States and Canada, 2nd ed., vol. 1: leaves in 3s'],
-  ['pinus-rigida', 'needleLengthMm', { min: 75, max: 125 }, 'Britton & Brown 1913, An Illustrated Flora of the Northern United States and Canada, 2nd ed., vol. 1: leaves 3–5 in'],
+  [
+    'pinus-rigida',
+    'needlesPerFascicle',
+    3,
+    'Britton & Brown 1913, An Illustrated Flora of the Northern United States and Canada, 2nd ed., vol. 1: leaves in 3s',
+  ],
+  [
+    'pinus-rigida',
+    'needleLengthMm',
+    { min: 75, max: 125 },
+    'Britton & Brown 1913, An Illustrated Flora of the Northern United States and Canada, 2nd ed., vol. 1: leaves 3–5 in',
+  ],
   ['pinus-rigida', 'flushHabit', 'polycyclic', TRADE], // common practice, no published source
   // Pinus strobus
   ['pinus-strobus', 'needlesPerFascicle', 5, 'Flora Europaea vol. 1 (Tutin et al. 1964)'],
@@ -206,7 +291,12 @@ export const speciesValueTable: ValueRow[] = [
   ['pinus-sylvestris', 'needleLengthMm', { min: 30, max: 70 }, 'Flora Europaea vol. 1 (Tutin et al. 1964): needles 3–7 cm'],
   ['pinus-sylvestris', 'vigour', 'moderate', 'Utah State University Extension Tree Browser: growth rate medium'],
   ['pinus-sylvestris', 'hardinessZones', { min: 2, max: 8 }, 'Utah State University Extension Tree Browser: USDA zones 2–8'],
-  ['pinus-sylvestris', 'nativeRange', 'Northern and central Europe, extending south in the mountains to Spain, northern Italy and Macedonia; also across northern Asia.', 'Flora Europaea vol. 1 (Europe only); the Asian part of the range from memory'],
+  [
+    'pinus-sylvestris',
+    'nativeRange',
+    'Northern and central Europe, extending south in the mountains to Spain, northern Italy and Macedonia; also across northern Asia.',
+    'Flora Europaea vol. 1 (Europe only); the Asian part of the range from memory',
+  ],
   ['pinus-sylvestris', 'flushHabit', 'single', TRADE], // common practice, no published source
   ['pinus-sylvestris', 'wildingCaution', true, 'New Zealand Wilding Conifer Management Strategy 2015–2030 (Ministry for Primary Industries, 2014)'],
   // Pinus tabuliformis
@@ -237,7 +327,12 @@ export const speciesValueTable: ValueRow[] = [
   // Sequoia sempervirens
   ['sequoia-sempervirens', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Taxodium distichum
-  ['taxodium-distichum', 'needleLengthMm', { min: 5, max: 15 }, 'Gleason & Cronquist 1991, Manual of Vascular Plants of Northeastern United States and Adjacent Canada, 2nd ed.: leaves 5–15 mm'],
+  [
+    'taxodium-distichum',
+    'needleLengthMm',
+    { min: 5, max: 15 },
+    'Gleason & Cronquist 1991, Manual of Vascular Plants of Northeastern United States and Adjacent Canada, 2nd ed.: leaves 5–15 mm',
+  ],
   ['taxodium-distichum', 'flushHabit', 'single', TRADE], // common practice, no published source
   // Taxus baccata
   ['taxus-baccata', 'flushHabit', 'single', TRADE], // common practice, no published source

@@ -76,7 +76,13 @@ describe('shipped species values against their sources', () => {
 
   it('cautions about invasive spread where planted out, for the species known for it', () => {
     for (const slug of ['pinus-contorta', 'pinus-sylvestris', 'pinus-nigra', 'pinus-halepensis', 'pinus-pinaster']) {
-      expect(records.get(slug)!.cautions.map((c) => c.text).join(' '), slug).toMatch(/planted out/);
+      expect(
+        records
+          .get(slug)!
+          .cautions.map((c) => c.text)
+          .join(' '),
+        slug,
+      ).toMatch(/planted out/);
     }
   });
 

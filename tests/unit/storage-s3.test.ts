@@ -15,7 +15,13 @@ beforeAll(async () => {
 }, 30_000);
 afterAll(async () => s3?.stop());
 
-const raw = () => new S3Client({ endpoint: s3.url, region: 'us-east-1', forcePathStyle: true, credentials: { accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey } });
+const raw = () =>
+  new S3Client({
+    endpoint: s3.url,
+    region: 'us-east-1',
+    forcePathStyle: true,
+    credentials: { accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey },
+  });
 
 describe('S3 storage', () => {
   it('writes, reads and deletes whole objects under generated keys, inside its prefix', async () => {
@@ -35,7 +41,7 @@ describe('S3 storage', () => {
     await expect(store.delete(key)).resolves.toBeUndefined();
   });
 
-  it('keeps another prefix apart: a second club on the same bucket sees none of the first club\'s photos', async () => {
+  it("keeps another prefix apart: a second club on the same bucket sees none of the first club's photos", async () => {
     const key = newStorageKey('photos', 'png');
     await store.put(key, Buffer.from('club a only'));
     const other = new S3Storage({ url: s3.url, bucket: s3.bucket, accessKeyId: s3.accessKeyId, secretAccessKey: s3.secretAccessKey, prefix: 'club-b' });

@@ -44,8 +44,18 @@ describe('recent collection', () => {
   });
 
   it('puts the stage the wizard would use, and the history, in the ask link', () => {
-    const p = askParamsFor(tree({ collectedFromWild: true, collectedOn: '2026-09-01', containerShape: 'round', containerLengthCm: 28, containerWidthCm: null }), '2027-04-20');
-    expect(Object.fromEntries(p)).toEqual({ tree: 'tree-aaaaaaaaaaaa', species: 'pinus-sylvestris', shape: 'round', lengthCm: '28', collected: '1', collectedOn: '2026-09-01' });
+    const p = askParamsFor(
+      tree({ collectedFromWild: true, collectedOn: '2026-09-01', containerShape: 'round', containerLengthCm: 28, containerWidthCm: null }),
+      '2027-04-20',
+    );
+    expect(Object.fromEntries(p)).toEqual({
+      tree: 'tree-aaaaaaaaaaaa',
+      species: 'pinus-sylvestris',
+      shape: 'round',
+      lengthCm: '28',
+      collected: '1',
+      collectedOn: '2026-09-01',
+    });
   });
 });
 
@@ -60,7 +70,11 @@ describe('due now for a tree', () => {
   it('is exactly the wizard engine’s due-now for the club hemisphere (no second copy of the rules)', async () => {
     await setHemisphere('north');
     const species = (await getWizardSpecies('pinus-sylvestris'))!;
-    for (const [date, stage] of [['2027-04-20', null], ['2027-08-10', 'development'], ['2027-01-15', 'refinement']] as const) {
+    for (const [date, stage] of [
+      ['2027-04-20', null],
+      ['2027-08-10', 'development'],
+      ['2027-01-15', 'refinement'],
+    ] as const) {
       const got = await dueNowForTree(tree(), stage, date);
       expect(got).toMatchObject(dueNow({ species, date, hemisphere: 'north', stage: stage ?? undefined }));
       expect(got?.hemisphere).toBe('north');

@@ -14,7 +14,11 @@ const errors: Record<string, string> = {
   AccessDenied: 'This account cannot sign in. Ask a club administrator.',
 };
 
-export default async function SignInPage({ searchParams }: { searchParams: Promise<{ error?: string; callbackUrl?: string; email?: string; confirmed?: string }> }) {
+export default async function SignInPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ error?: string; callbackUrl?: string; email?: string; confirmed?: string }>;
+}) {
   const sp = await searchParams;
   const callbackUrl = safeCallbackPath(sp.callbackUrl, env.NEXTAUTH_URL);
   // Only a plausible address is put back into the form (it came from a link in our own e-mail).
@@ -23,10 +27,14 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
     <div className="mx-auto max-w-md space-y-6">
       <h1 className="page-title">Sign in</h1>
       {sp.error ? (
-        <p role="alert" className="rounded-lg bg-clay-100 p-3 text-clay-700">{errors[sp.error] ?? 'Sign-in failed. Try again.'}</p>
+        <p role="alert" className="rounded-lg bg-clay-100 p-3 text-clay-700">
+          {errors[sp.error] ?? 'Sign-in failed. Try again.'}
+        </p>
       ) : null}
       {sp.confirmed === '1' ? (
-        <p role="status" className="rounded-lg bg-moss-50 p-3 text-moss-800" data-testid="account-ready">Your account is ready. Sign in with the password you chose.</p>
+        <p role="status" className="rounded-lg bg-moss-50 p-3 text-moss-800" data-testid="account-ready">
+          Your account is ready. Sign in with the password you chose.
+        </p>
       ) : null}
       <SignInForms callbackUrl={callbackUrl} email={email} />
       <p className="text-stone-700">

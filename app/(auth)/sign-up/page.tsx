@@ -10,7 +10,9 @@ export default function SignUpPage() {
       <h1 className="page-title">Create an account</h1>
       <p className="text-stone-700">Members ask about their shoots, keep their trees and save their answers.</p>
       <SignUpForm />
-      <p className="text-stone-700">Already a member? <Link href="/sign-in">Sign in</Link>.</p>
+      <p className="text-stone-700">
+        Already a member? <Link href="/sign-in">Sign in</Link>.
+      </p>
     </div>
   );
 }

@@ -29,7 +29,11 @@ export default async function AskPage({ searchParams }: { searchParams: Promise<
       <div className="mx-auto max-w-xl">
         <h1 className="page-title">Ask about a shoot</h1>
         <p className="text-stone-700">A few questions about one shoot, then one clear thing to do, with the reasons.</p>
-        {treeParam && !tree && <p role="status" className="mt-2 rounded-lg bg-sun-100 p-3">That tree is not among yours, so nothing was filled in.</p>}
+        {treeParam && !tree && (
+          <p role="status" className="mt-2 rounded-lg bg-sun-100 p-3">
+            That tree is not among yours, so nothing was filled in.
+          </p>
+        )}
       </div>
       <Suspense fallback={<p className="text-stone-700">Loading the questions…</p>}>
         <AskWizard

@@ -14,7 +14,11 @@ export default async function NotesPage() {
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="page-title">Meeting notes</h1>
-        {writer ? <Link href="/notes/new" className="btn-primary">Write a note</Link> : null}
+        {writer ? (
+          <Link href="/notes/new" className="btn-primary">
+            Write a note
+          </Link>
+        ) : null}
       </div>
       <p className="max-w-2xl text-stone-700">
         The club’s record of each meeting, with links to the answers and species discussed.

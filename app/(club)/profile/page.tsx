@@ -12,7 +12,9 @@ export default async function ProfilePage() {
   return (
     <div className="max-w-xl space-y-6">
       <h1 className="page-title">Your profile</h1>
-      <p className="text-stone-700">{profile.email} · {roleLabels[profile.role]}</p>
+      <p className="text-stone-700">
+        {profile.email} · {roleLabels[profile.role]}
+      </p>
       <ProfileForm initial={{ name: profile.name ?? '', digestOptIn: profile.digestOptIn, reminderOptIn: profile.reminderOptIn }} />
     </div>
   );

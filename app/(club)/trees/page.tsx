@@ -15,7 +15,9 @@ export default async function TreesPage() {
     <div className="space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1 className="page-title">Your trees</h1>
-        <Link href="/trees/new" className="btn-primary">Add a tree</Link>
+        <Link href="/trees/new" className="btn-primary">
+          Add a tree
+        </Link>
       </div>
       <p className="max-w-2xl text-stone-700">Only you see your trees. Each keeps its container, history, answers and photos together.</p>
       <TreesTable initial={items} due={due} />

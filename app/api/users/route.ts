@@ -19,10 +19,7 @@ export const POST = route(async (req) => {
   }
   const input = await parseJson(req, signUpSchema);
   queueSignUp(input);
-  return NextResponse.json(
-    { status: 'pending', email: input.email, message: `Check your e-mail: we sent the next step to ${input.email}.` },
-    { status: 202 },
-  );
+  return NextResponse.json({ status: 'pending', email: input.email, message: `Check your e-mail: we sent the next step to ${input.email}.` }, { status: 202 });
 });
 
 const listQuery = z.object({

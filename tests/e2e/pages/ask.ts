@@ -28,7 +28,10 @@ export class AskPage {
 
   async pickSpecies(search: string, name: string) {
     await this.page.getByLabel('Search by common or botanical name').fill(search);
-    await this.page.getByTestId('species-results').getByRole('button', { name: new RegExp(name, 'i') }).click();
+    await this.page
+      .getByTestId('species-results')
+      .getByRole('button', { name: new RegExp(name, 'i') })
+      .click();
     await expect(this.page.getByTestId('species-chosen')).toContainText(name);
   }
 }

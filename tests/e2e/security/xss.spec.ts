@@ -30,9 +30,7 @@ async function hookDialogs(page: Page) {
 
 async function serve(page: Page, html: string) {
   await page.route('**/*', (route) =>
-    route.request().url().startsWith(`${ORIGIN}/`)
-      ? route.fulfill({ status: 200, contentType: 'text/html; charset=utf-8', body: html })
-      : route.abort(),
+    route.request().url().startsWith(`${ORIGIN}/`) ? route.fulfill({ status: 200, contentType: 'text/html; charset=utf-8', body: html }) : route.abort(),
   );
   await page.goto(`${ORIGIN}/`);
 }

@@ -10,7 +10,10 @@ const f = new Fixtures(base);
 
 const BAD_BODIES: { name: string; body: string }[] = [
   { name: 'an empty object', body: '{}' },
-  { name: 'wrong types everywhere', body: JSON.stringify({ title: 7, body: [], name: false, email: 3, slug: {}, commonName: null, species: 9, revision: 'x' }) },
+  {
+    name: 'wrong types everywhere',
+    body: JSON.stringify({ title: 7, body: [], name: false, email: 3, slug: {}, commonName: null, species: 9, revision: 'x' }),
+  },
   { name: 'malformed JSON', body: '{"title": ' },
 ];
 

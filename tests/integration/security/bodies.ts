@@ -4,7 +4,7 @@ import type { Client, Fixtures } from './fixtures';
 // Valid request bodies for the record and wizard routes, shared by the security suites.
 
 /** A published species of the demo data. */
-export async function speciesSlug(f: Fixtures): Promise<string> {
+async function speciesSlug(f: Fixtures): Promise<string> {
   return f.once('species-slug', async () => {
     const r = await (await f.client('member')).json('/api/species?limit=5', 'GET');
     const slug = r.body?.items?.[0]?.slug;
@@ -41,7 +41,9 @@ export async function treeBody(f: Fixtures, name = 'Security test pine') {
 }
 
 export async function pngBytes(width = 64, height = 48): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 3, background: { r: 70, g: 120, b: 60 } } }).png().toBuffer();
+  return sharp({ create: { width, height, channels: 3, background: { r: 70, g: 120, b: 60 } } })
+    .png()
+    .toBuffer();
 }
 
 export async function uploadPhoto(

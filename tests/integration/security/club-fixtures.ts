@@ -89,7 +89,9 @@ export async function speciesMarkdown(f: Fixtures, newSlug: string) {
 }
 
 export async function newNote(f: Fixtures, status: 'draft' | 'published' = 'published'): Promise<string> {
-  const r = await (await f.client('librarian')).json('/api/notes', 'POST', {
+  const r = await (
+    await f.client('librarian')
+  ).json('/api/notes', 'POST', {
     title: `Matrix meeting ${uniqueLetters()}`,
     meetingDate: '2026-11-14',
     body: 'We looked at candles on the **black pines**.',

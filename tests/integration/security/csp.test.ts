@@ -9,10 +9,14 @@ const f = new Fixtures(base);
 
 function directives(csp: string) {
   return Object.fromEntries(
-    csp.split(';').map((d) => d.trim()).filter(Boolean).map((d) => {
-      const [name, ...values] = d.split(/\s+/);
-      return [name.toLowerCase(), values];
-    }),
+    csp
+      .split(';')
+      .map((d) => d.trim())
+      .filter(Boolean)
+      .map((d) => {
+        const [name, ...values] = d.split(/\s+/);
+        return [name.toLowerCase(), values];
+      }),
   ) as Record<string, string[]>;
 }
 

@@ -44,8 +44,16 @@ describe('cross-site writes', () => {
     if (row.body === 'json') {
       // What an HTML form or a no-preflight fetch from another site can send: text/plain.
       attempts.push(
-        { label: 'text/plain JSON, cross-site', headers: { 'content-type': 'text/plain;charset=UTF-8', origin: EVIL, 'sec-fetch-site': 'cross-site' }, ok: [403, 415] },
-        { label: 'text/plain JSON, fetch metadata only', headers: { 'content-type': 'text/plain;charset=UTF-8', 'sec-fetch-site': 'cross-site' }, ok: [403, 415] },
+        {
+          label: 'text/plain JSON, cross-site',
+          headers: { 'content-type': 'text/plain;charset=UTF-8', origin: EVIL, 'sec-fetch-site': 'cross-site' },
+          ok: [403, 415],
+        },
+        {
+          label: 'text/plain JSON, fetch metadata only',
+          headers: { 'content-type': 'text/plain;charset=UTF-8', 'sec-fetch-site': 'cross-site' },
+          ok: [403, 415],
+        },
         // Without Origin this is no browser's request, but it must still not be taken as JSON.
         { label: 'text/plain JSON, no Origin', headers: { 'content-type': 'text/plain;charset=UTF-8' }, ok: [400, 415] },
       );

@@ -5,7 +5,6 @@ import { Client, DEMO_PASSWORD, signedIn, signUp } from '../../support/http-clie
 
 export const ACTORS = ['anonymous', 'member', 'editor', 'librarian', 'admin'] as const;
 export type Actor = (typeof ACTORS)[number];
-export const SIGNED_IN = ACTORS.filter((a) => a !== 'anonymous');
 
 export const demoEmail: Record<Exclude<Actor, 'anonymous'>, string> = {
   member: 'member@candlewise.test',

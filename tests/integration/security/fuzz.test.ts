@@ -11,7 +11,7 @@ const f = new Fixtures(base);
 const RUNS = Number(process.env.FUZZ_RUNS ?? 60);
 
 const jsonRows = routeMatrix.filter((r) => r.body === 'json');
-const apiGetRows = routeMatrix.filter((r) => r.method === 'GET' && (r.kind === 'api'));
+const apiGetRows = routeMatrix.filter((r) => r.method === 'GET' && r.kind === 'api');
 const dynamicRows = routeMatrix.filter((r) => r.kind === 'api' && /\[[^\]]+\]/.test(r.route));
 
 function fuzzActor(row: RouteRow): Actor {
@@ -27,7 +27,21 @@ afterAll(async () => {
 const nasty = fc.oneof(
   fc.jsonValue(),
   fc.string({ unit: 'binary', maxLength: 300 }),
-  fc.constantFrom('', ' ', '\u0000', '\uD800', 'null', 'true', '1e309', '-0', '../../etc/passwd', '<script>alert(1)</script>', "'; drop table users; --", '%00', 'ＡＢＣ'),
+  fc.constantFrom(
+    '',
+    ' ',
+    '\u0000',
+    '\uD800',
+    'null',
+    'true',
+    '1e309',
+    '-0',
+    '../../etc/passwd',
+    '<script>alert(1)</script>',
+    "'; drop table users; --",
+    '%00',
+    'ＡＢＣ',
+  ),
   fc.constantFrom(0, -1, 1e308, -1e308, Number.MAX_SAFE_INTEGER + 2, 1e-320, 0.1),
   fc.array(fc.jsonValue(), { maxLength: 5 }),
   fc.dictionary(fc.string({ maxLength: 10 }), fc.jsonValue(), { maxKeys: 5 }),
@@ -38,7 +52,12 @@ function bodies(valid: unknown) {
   const near =
     valid && typeof valid === 'object' && !Array.isArray(valid)
       ? fc
-          .record(Object.fromEntries(Object.keys(valid).map((k) => [k, fc.option(fc.oneof(fc.constant((valid as Record<string, unknown>)[k]), nasty), { nil: undefined })])), { requiredKeys: [] })
+          .record(
+            Object.fromEntries(
+              Object.keys(valid).map((k) => [k, fc.option(fc.oneof(fc.constant((valid as Record<string, unknown>)[k]), nasty), { nil: undefined })]),
+            ),
+            { requiredKeys: [] },
+          )
           .chain((r) => fc.dictionary(fc.string({ maxLength: 12 }), nasty, { maxKeys: 3 }).map((extra) => ({ ...extra, ...r })))
       : nasty;
   return fc.oneof(
@@ -63,7 +82,10 @@ describe('fuzzing', () => {
         const body = await res.text();
         if (res.status >= 500) throw new Error(`${res.status} for body ${text.slice(0, 200)} → ${body.slice(0, 200)}`);
       }),
-      { numRuns: RUNS, examples: [[{ text: '{}' }], [{ text: '[]' }], [{ text: 'null' }], [{ text: '"x"' }], [{ text: '' }], [{ text: '{"__proto__":{"role":"admin"}}' }]] },
+      {
+        numRuns: RUNS,
+        examples: [[{ text: '{}' }], [{ text: '[]' }], [{ text: 'null' }], [{ text: '"x"' }], [{ text: '' }], [{ text: '{"__proto__":{"role":"admin"}}' }]],
+      },
     );
     // The fuzzer did reach validation, not only a blanket refusal.
     expect(seen.some((s) => s === 400 || s === 422)).toBe(true);
@@ -72,7 +94,9 @@ describe('fuzzing', () => {
 
   it('refuses an oversize JSON body with 413, not 5xx', async () => {
     const row = jsonRows.find((r) => r.route === 'POST /api/users')!;
-    const res = await (await f.client('anonymous')).request('/api/users', { method: row.method, headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'x'.repeat(2_000_000) }) });
+    const res = await (
+      await f.client('anonymous')
+    ).request('/api/users', { method: row.method, headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'x'.repeat(2_000_000) }) });
     expect(res.status).toBe(413);
   });
 
@@ -82,7 +106,14 @@ describe('fuzzing', () => {
     const spec = await row.request(f, actor);
     const url = new URL(spec.path, base);
     const known = [...url.searchParams.keys(), 'q', 'limit', 'cursor', 'sort', 'dir', 'page', 'revision'];
-    const query = fc.dictionary(fc.oneof(fc.constantFrom(...known), fc.string({ maxLength: 8 })), fc.oneof(fc.string({ unit: 'binary', maxLength: 120 }), nasty.map((v) => JSON.stringify(v) ?? '')), { maxKeys: 4 });
+    const query = fc.dictionary(
+      fc.oneof(fc.constantFrom(...known), fc.string({ maxLength: 8 })),
+      fc.oneof(
+        fc.string({ unit: 'binary', maxLength: 120 }),
+        nasty.map((v) => JSON.stringify(v) ?? ''),
+      ),
+      { maxKeys: 4 },
+    );
     await fc.assert(
       fc.asyncProperty(query, async (params) => {
         const q = new URLSearchParams();
@@ -91,7 +122,10 @@ describe('fuzzing', () => {
         const body = await res.text();
         if (res.status >= 500) throw new Error(`${res.status} for ?${q} → ${body.slice(0, 200)}`);
       }),
-      { numRuns: Math.ceil(RUNS / 2), examples: [[{ q: '\u0000' }], [{ cursor: '\u0000' }], [{ limit: '1e309' }], [{ cursor: 'eyJ4Ijoi' }], [{ sort: '__proto__' }]] },
+      {
+        numRuns: Math.ceil(RUNS / 2),
+        examples: [[{ q: '\u0000' }], [{ cursor: '\u0000' }], [{ limit: '1e309' }], [{ cursor: 'eyJ4Ijoi' }], [{ sort: '__proto__' }]],
+      },
     );
   });
 
@@ -103,17 +137,20 @@ describe('fuzzing', () => {
     const real = new URL(spec.path, base).pathname.split('/');
     const at = pattern.findIndex((s) => s.startsWith('['));
     await fc.assert(
-      fc.asyncProperty(fc.oneof(fc.string({ unit: 'binary', minLength: 1, maxLength: 200 }), fc.constantFrom('..', '%2e%2e', '0', '-1', '9'.repeat(40), 'a'.repeat(5000))), async (id) => {
-        const parts = [...real];
-        parts[at] = encodeURIComponent(id);
-        const res = await client.request(parts.join('/'), {
-          method: row.method,
-          headers: spec.json !== undefined ? { 'content-type': 'application/json' } : {},
-          body: spec.json !== undefined ? JSON.stringify(spec.json) : undefined,
-        });
-        const body = await res.text();
-        if (res.status >= 500) throw new Error(`${res.status} for id ${JSON.stringify(id).slice(0, 100)} → ${body.slice(0, 200)}`);
-      }),
+      fc.asyncProperty(
+        fc.oneof(fc.string({ unit: 'binary', minLength: 1, maxLength: 200 }), fc.constantFrom('..', '%2e%2e', '0', '-1', '9'.repeat(40), 'a'.repeat(5000))),
+        async (id) => {
+          const parts = [...real];
+          parts[at] = encodeURIComponent(id);
+          const res = await client.request(parts.join('/'), {
+            method: row.method,
+            headers: spec.json !== undefined ? { 'content-type': 'application/json' } : {},
+            body: spec.json !== undefined ? JSON.stringify(spec.json) : undefined,
+          });
+          const body = await res.text();
+          if (res.status >= 500) throw new Error(`${res.status} for id ${JSON.stringify(id).slice(0, 100)} → ${body.slice(0, 200)}`);
+        },
+      ),
       { numRuns: Math.ceil(RUNS / 2) },
     );
   });

@@ -8,10 +8,14 @@ const f = new Fixtures(base);
 
 function directives(csp: string) {
   return Object.fromEntries(
-    csp.split(';').map((d) => d.trim()).filter(Boolean).map((d) => {
-      const [name, ...values] = d.split(/\s+/);
-      return [name.toLowerCase(), values];
-    }),
+    csp
+      .split(';')
+      .map((d) => d.trim())
+      .filter(Boolean)
+      .map((d) => {
+        const [name, ...values] = d.split(/\s+/);
+        return [name.toLowerCase(), values];
+      }),
   ) as Record<string, string[]>;
 }
 
@@ -83,7 +87,10 @@ describe('cookies', () => {
     await res.body?.cancel();
     expect(setCookies.some((s) => s.startsWith('next-auth.session-token='))).toBe(true);
     for (const s of setCookies) {
-      const attrs = s.split(';').slice(1).map((a) => a.trim().toLowerCase());
+      const attrs = s
+        .split(';')
+        .slice(1)
+        .map((a) => a.trim().toLowerCase());
       expect(attrs, s).toContain('httponly');
       expect(attrs, s).toContain('samesite=lax');
       expect(attrs, s).toContain('path=/');

@@ -2,10 +2,10 @@ import { ACTORS, type Actor, type Client, type Fixtures } from './fixtures';
 
 // The shape of a row of the role × route matrix (route-matrix.ts) and the expectation shorthands.
 
-export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 export type Expect = number | readonly number[];
 
-export interface RequestSpec {
+interface RequestSpec {
   path: string;
   json?: unknown;
   form?: Record<string, string>;
@@ -43,7 +43,7 @@ export const atLeast = (role: 'editor' | 'librarian' | 'admin', ok: Expect): Rec
   admin: ok,
 });
 // Pages: the anonymous are sent to sign in (307), the wrong role gets the 403 page.
-export const REDIRECT = 307;
+const REDIRECT = 307;
 export const pageSignedIn: Record<Actor, Expect> = { ...every(200), anonymous: REDIRECT };
 export const pageAtLeast = (role: 'editor' | 'librarian' | 'admin'): Record<Actor, Expect> => ({ ...atLeast(role, 200), anonymous: REDIRECT });
 

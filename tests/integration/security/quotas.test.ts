@@ -41,7 +41,12 @@ describe('caps', () => {
   it(`one client asks for at most ${SIGNUPS} sign-ups an hour, whatever it claims to be`, async () => {
     const statuses: number[] = [];
     for (let i = 0; i < SIGNUPS; i++) {
-      const r = await new Client(app.url).json('/api/users', 'POST', { name: 'Quota', email: `quota-${i}-${Date.now()}@candlewise.test`, password: 'riverside-moss-and-stone' }, { 'x-forwarded-for': `203.0.113.${i}` });
+      const r = await new Client(app.url).json(
+        '/api/users',
+        'POST',
+        { name: 'Quota', email: `quota-${i}-${Date.now()}@candlewise.test`, password: 'riverside-moss-and-stone' },
+        { 'x-forwarded-for': `203.0.113.${i}` },
+      );
       statuses.push(r.status);
     }
     // Two sign-ups went to the earlier tests of this file.

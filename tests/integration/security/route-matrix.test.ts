@@ -52,8 +52,14 @@ describe('the route matrix', () => {
 
     const listed = new Set(routeMatrix.map((r) => (r.kind === 'action' ? `POST ${r.file}` : `${r.method} ${r.file}`)));
     const inApp = [...handlers, ...pages, ...actions];
-    expect(inApp.filter((x) => !listed.has(x)), 'handlers, pages or actions without a row').toEqual([]);
-    expect([...listed].filter((x) => !inApp.includes(x)), 'rows for code that no longer exists').toEqual([]);
+    expect(
+      inApp.filter((x) => !listed.has(x)),
+      'handlers, pages or actions without a row',
+    ).toEqual([]);
+    expect(
+      [...listed].filter((x) => !inApp.includes(x)),
+      'rows for code that no longer exists',
+    ).toEqual([]);
     expect(new Set(routeMatrix.map((r) => r.route)).size, 'duplicate rows').toBe(routeMatrix.length);
   });
 

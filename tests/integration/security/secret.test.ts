@@ -77,7 +77,17 @@ async function startExpectingRefusal(env: Record<string, string>) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-secret-'));
   const proc = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(port)], {
     cwd: root,
-    env: { ...process.env, NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1', PGLITE_DIR: path.join(dir, 'pglite'), DATABASE_URL: '', NEXTAUTH_URL: `http://127.0.0.1:${port}`, MAIL_FAKE: '0', NEXTAUTH_SECRET: '', ...env },
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      NEXT_TELEMETRY_DISABLED: '1',
+      PGLITE_DIR: path.join(dir, 'pglite'),
+      DATABASE_URL: '',
+      NEXTAUTH_URL: `http://127.0.0.1:${port}`,
+      MAIL_FAKE: '0',
+      NEXTAUTH_SECRET: '',
+      ...env,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';

@@ -19,7 +19,9 @@ const copyOf = (c: Client) => {
 /** Many reads, ten at a time, so the account is surely cached (and loaded concurrently). */
 async function warm(c: Client, paths = ['/api/me', '/api/answers', '/api/trees']) {
   for (let round = 0; round < 3; round++) {
-    const statuses = await Promise.all(Array.from({ length: 10 }, (_, i) => c.get(paths[i % paths.length]).then(async (r) => (await r.body?.cancel(), r.status))));
+    const statuses = await Promise.all(
+      Array.from({ length: 10 }, (_, i) => c.get(paths[i % paths.length]).then(async (r) => (await r.body?.cancel(), r.status))),
+    );
     expect(statuses.every((s) => s === 200)).toBe(true);
   }
 }
@@ -80,7 +82,16 @@ describe('the in-memory account of a session', () => {
     let stop = false;
     const background = (async () => {
       const seen: number[] = [];
-      while (!stop) seen.push(...(await Promise.all([old.get('/api/me'), old.get('/api/trees')].map(async (p) => { const r = await p; await r.body?.cancel(); return r.status; }))));
+      while (!stop)
+        seen.push(
+          ...(await Promise.all(
+            [old.get('/api/me'), old.get('/api/trees')].map(async (p) => {
+              const r = await p;
+              await r.body?.cancel();
+              return r.status;
+            }),
+          )),
+        );
       return seen;
     })();
     await new Promise((r) => setTimeout(r, 200));
@@ -116,7 +127,12 @@ describe('the in-memory account of a session', () => {
 
 describe("the wizard's cached species", () => {
   const ask = (species: string) => ({
-    species, branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average',
+    species,
+    branching: 'tertiary',
+    date: '2027-05-10',
+    shoot: 'candle-extending',
+    position: 'beyond-silhouette',
+    health: 'average',
   });
 
   it('follows a publish on the next evaluation, and ignores a draft', async () => {

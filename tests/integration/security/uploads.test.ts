@@ -17,7 +17,8 @@ let treeId: string;
 
 function filesUnder(dir: string): string[] {
   if (!fs.existsSync(dir)) return [];
-  return fs.readdirSync(dir, { recursive: true, withFileTypes: true })
+  return fs
+    .readdirSync(dir, { recursive: true, withFileTypes: true })
     .filter((e) => e.isFile())
     .map((e) => path.join(e.parentPath, e.name))
     .sort();
@@ -76,8 +77,16 @@ describe('hostile uploads', () => {
     { label: '20 000 × 20 000 PNG', bytes: () => hugeCanvasPng(), filename: 'huge.png', type: 'image/png', statuses: [413, 422] },
     {
       label: 'oversize (11 MB) JPEG',
-      bytes: async () => Buffer.concat([await sharp({ create: { width: 8, height: 8, channels: 3, background: '#335533' } }).jpeg().toBuffer(), Buffer.alloc(11 * 1024 * 1024, 7)]),
-      filename: 'big.jpg', type: 'image/jpeg', statuses: [413],
+      bytes: async () =>
+        Buffer.concat([
+          await sharp({ create: { width: 8, height: 8, channels: 3, background: '#335533' } })
+            .jpeg()
+            .toBuffer(),
+          Buffer.alloc(11 * 1024 * 1024, 7),
+        ]),
+      filename: 'big.jpg',
+      type: 'image/jpeg',
+      statuses: [413],
     },
     { label: 'path-traversal name', bytes: () => pngBytes(), filename: '../../../../../tmp/cw-evil-upload.png', type: 'image/png', statuses: [400, 422] },
     { label: 'Windows path-traversal name', bytes: () => pngBytes(), filename: '..\\..\\..\\cw-evil-upload.png', type: 'image/png', statuses: [400, 422] },

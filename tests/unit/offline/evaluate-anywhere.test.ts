@@ -8,7 +8,12 @@ import { shippedSpecies } from '../../support/shipped-species';
 // The phone runs the very engine module the server runs, on the species data it kept.
 const data = { context: { hemisphere: 'north' as const, latitude: 45.5, decandleOffsetDays: 0 }, species: shippedSpecies };
 const body: EvaluateBody = {
-  species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average',
+  species: 'pinus-sylvestris',
+  branching: 'tertiary',
+  date: '2027-05-10',
+  shoot: 'candle-extending',
+  position: 'beyond-silhouette',
+  health: 'average',
 };
 
 /** fetch as on a phone with no signal: every request fails, except the worker's kept copy of the species data. */
@@ -34,15 +39,34 @@ describe('evaluating with or without a signal', () => {
   });
 
   it("uses the server's answer when it can be reached, and does not mark it", async () => {
-    const server = { ...evaluate(body, shippedSpecies.find((s) => s.slug === 'pinus-sylvestris')!, { ...data.context, today: '2027-05-10' }), headline: 'from the server' };
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(server), { status: 200 })));
+    const server = {
+      ...evaluate(
+        body,
+        shippedSpecies.find((s) => s.slug === 'pinus-sylvestris')!,
+        { ...data.context, today: '2027-05-10' },
+      ),
+      headline: 'from the server',
+    };
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response(JSON.stringify(server), { status: 200 })),
+    );
     const result = await evaluateAnywhere(body);
     expect(result.headline).toBe('from the server');
     expect(isWorkedOutOnPhone(result)).toBe(false);
   });
 
   it("passes on the server's refusal instead of working it out on the phone", async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify({ error: { code: 'bad_request:fields', message: 'Invalid input', fields: { date: ['Give a real date as YYYY-MM-DD.'] } } }), { status: 400 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(
+        async () =>
+          new Response(
+            JSON.stringify({ error: { code: 'bad_request:fields', message: 'Invalid input', fields: { date: ['Give a real date as YYYY-MM-DD.'] } } }),
+            { status: 400 },
+          ),
+      ),
+    );
     await expect(evaluateAnywhere(body)).rejects.toThrow('Invalid input (date: Give a real date as YYYY-MM-DD.)');
   });
 

@@ -2,13 +2,27 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import 'fake-indexeddb/auto';
 import { IDBFactory } from 'fake-indexeddb';
 import {
-  closeQueue, discardQueued, enqueueSave, flushQueue, listQueued, newIdempotencyKey, retryQueued, sendToServer, sentRecord,
-  type QueuedSave, type SendOutcome,
+  closeQueue,
+  discardQueued,
+  enqueueSave,
+  flushQueue,
+  listQueued,
+  newIdempotencyKey,
+  retryQueued,
+  sendToServer,
+  sentRecord,
+  type QueuedSave,
+  type SendOutcome,
 } from '@/components/offline/queue';
 import type { SaveAnswerWithPhoneBody } from '@/lib/validation/offline';
 
 const body = (date: string): SaveAnswerWithPhoneBody => ({
-  species: 'pinus-sylvestris', branching: 'tertiary', date, shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average',
+  species: 'pinus-sylvestris',
+  branching: 'tertiary',
+  date,
+  shoot: 'candle-extending',
+  position: 'beyond-silhouette',
+  health: 'average',
 });
 
 async function queue(userId: string, ...dates: string[]) {
@@ -107,7 +121,8 @@ describe('offline answer queue', () => {
     const keys = await queue('u1', '2027-05-01', '2027-05-02');
     const server = fakeServer();
     let refuse = true;
-    const picky = async (e: QueuedSave): Promise<SendOutcome> => (refuse && e.key === keys[0] ? { kind: 'refused', reason: 'We have no published species with that name.' } : server.send(e));
+    const picky = async (e: QueuedSave): Promise<SendOutcome> =>
+      refuse && e.key === keys[0] ? { kind: 'refused', reason: 'We have no published species with that name.' } : server.send(e);
     const first = await flushQueue('u1', picky);
     expect(first).toMatchObject({ waiting: 0, refused: 1 });
     expect(first.sent.map((s) => s.key)).toEqual([keys[1]]);
@@ -140,14 +155,24 @@ describe('offline answer queue', () => {
   it('queues a key once, however often it is queued', async () => {
     const key = newIdempotencyKey();
     expect(key).toMatch(/^[A-Za-z0-9_-]{16,100}$/);
-    for (let i = 0; i < 3; i++) await enqueueSave({ key, userId: 'u1', body: body('2027-05-01'), label: { speciesName: 'Scots pine', headline: '', date: '2027-05-01' } });
+    for (let i = 0; i < 3; i++)
+      await enqueueSave({ key, userId: 'u1', body: body('2027-05-01'), label: { speciesName: 'Scots pine', headline: '', date: '2027-05-01' } });
     expect(await listQueued('u1')).toHaveLength(1);
   });
 });
 
 describe('sending one save to the server', () => {
-  const entry: QueuedSave = { seq: 1, key: 'k'.repeat(32), userId: 'u1', body: body('2027-05-01'), label: { speciesName: 'Scots pine', headline: '', date: '2027-05-01' }, queuedAt: '2027-05-01T10:00:00Z', attempts: 0 };
-  const reply = (status: number, json: unknown) => vi.fn(async () => new Response(JSON.stringify(json), { status, headers: { 'content-type': 'application/json' } }));
+  const entry: QueuedSave = {
+    seq: 1,
+    key: 'k'.repeat(32),
+    userId: 'u1',
+    body: body('2027-05-01'),
+    label: { speciesName: 'Scots pine', headline: '', date: '2027-05-01' },
+    queuedAt: '2027-05-01T10:00:00Z',
+    attempts: 0,
+  };
+  const reply = (status: number, json: unknown) =>
+    vi.fn(async () => new Response(JSON.stringify(json), { status, headers: { 'content-type': 'application/json' } }));
 
   it('posts the body with its Idempotency-Key and takes 201 and 200 as saved', async () => {
     for (const status of [201, 200]) {
@@ -162,7 +187,12 @@ describe('sending one save to the server', () => {
   });
 
   it('waits on no connection, a lapsed session, a limit or a server fault; is refused on a bad body', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => { throw new TypeError('Failed to fetch'); }));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => {
+        throw new TypeError('Failed to fetch');
+      }),
+    );
     expect((await sendToServer(entry)).kind).toBe('later');
     for (const status of [401, 408, 429, 500, 503]) {
       vi.stubGlobal('fetch', reply(status, { error: { code: 'x', message: 'not now' } }));

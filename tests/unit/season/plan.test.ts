@@ -4,9 +4,7 @@ import { readSpeciesDir } from '@/lib/species/content-dir';
 import { toWizardSpecies, type WizardSpecies } from '@/lib/validation/species';
 import { evaluate } from '@/lib/wizard/engine';
 import { addDays, daysBetween, type DayTemps } from '@/lib/season/degree-days';
-import {
-  CANDLE_START_SHARE, ELONGATION_DONE_SHARE, expectedShoot, latitudeYear, shootTimeline, thermalSeason,
-} from '@/lib/season/thermal';
+import { CANDLE_START_SHARE, ELONGATION_DONE_SHARE, expectedShoot, latitudeYear, shootTimeline, thermalSeason } from '@/lib/season/thermal';
 import { anchorShift, dueSoon, planForTree, type PlanTree } from '@/lib/season/plan';
 
 // Against the shipped species files.
@@ -57,22 +55,53 @@ describe('a tree’s plan', () => {
   const record = (warmer: number) => ({ thisYear: upTo(year(2027, warmer, '2027-04-30'), '2027-04-30'), earlierYears: [year(2024), year(2025), year(2026)] });
 
   it('the windows are the engine’s own answers on those days (no second copy of the rules)', () => {
-    const plan = planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today: '2027-04-30', hemisphere: 'north', latitude: 45, record: record(0) });
+    const plan = planForTree({
+      species: sp('pinus-sylvestris'),
+      tree: refinedStrong,
+      today: '2027-04-30',
+      hemisphere: 'north',
+      latitude: 45,
+      record: record(0),
+    });
     expect(plan.basis).toBe('degree-days');
     const candle = plan.windows.find((w) => w.task === 'candle-work')!;
     expect(candle).toBeDefined();
     for (const date of [candle.from, candle.to]) {
       const r = evaluate(
-        { species: 'pinus-sylvestris', branching: 'tertiary', date, hemisphere: 'north', latitude: 45, shoot: expectedShoot(plan.timeline!, date), position: 'beyond-silhouette', health: 'strong', recentlyCollected: false, candleStrength: 'strong' },
-        sp('pinus-sylvestris'), { hemisphere: 'north', latitude: 45, today: date },
+        {
+          species: 'pinus-sylvestris',
+          branching: 'tertiary',
+          date,
+          hemisphere: 'north',
+          latitude: 45,
+          shoot: expectedShoot(plan.timeline!, date),
+          position: 'beyond-silhouette',
+          health: 'strong',
+          recentlyCollected: false,
+          candleStrength: 'strong',
+        },
+        sp('pinus-sylvestris'),
+        { hemisphere: 'north', latitude: 45, today: date },
       );
       expect(r.action).toBe('pinch');
     }
     // The day before the window the engine does not say pinch.
     const before = addDays(candle.from, -1);
     const r = evaluate(
-      { species: 'pinus-sylvestris', branching: 'tertiary', date: before, hemisphere: 'north', latitude: 45, shoot: expectedShoot(plan.timeline!, before), position: 'beyond-silhouette', health: 'strong', recentlyCollected: false, candleStrength: 'strong' },
-      sp('pinus-sylvestris'), { hemisphere: 'north', latitude: 45, today: before },
+      {
+        species: 'pinus-sylvestris',
+        branching: 'tertiary',
+        date: before,
+        hemisphere: 'north',
+        latitude: 45,
+        shoot: expectedShoot(plan.timeline!, before),
+        position: 'beyond-silhouette',
+        health: 'strong',
+        recentlyCollected: false,
+        candleStrength: 'strong',
+      },
+      sp('pinus-sylvestris'),
+      { hemisphere: 'north', latitude: 45, today: before },
     );
     expect(r.action).not.toBe('pinch');
     expect(candle.reasons[0]).toMatch(/Intra-annual height increment of Pinus sylvestris/);
@@ -80,8 +109,22 @@ describe('a tree’s plan', () => {
   });
 
   it('a warmer spring gives earlier windows', () => {
-    const normal = planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today: '2027-04-30', hemisphere: 'north', latitude: 45, record: record(0) });
-    const warm = planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today: '2027-04-30', hemisphere: 'north', latitude: 45, record: record(3) });
+    const normal = planForTree({
+      species: sp('pinus-sylvestris'),
+      tree: refinedStrong,
+      today: '2027-04-30',
+      hemisphere: 'north',
+      latitude: 45,
+      record: record(0),
+    });
+    const warm = planForTree({
+      species: sp('pinus-sylvestris'),
+      tree: refinedStrong,
+      today: '2027-04-30',
+      hemisphere: 'north',
+      latitude: 45,
+      record: record(3),
+    });
     expect(warm.timeline!.hardened < normal.timeline!.hardened).toBe(true);
     const c = (p: typeof normal) => p.windows.find((w) => w.task === 'candle-work')!;
     expect(daysBetween(c(warm).from, c(normal).from)).toBeGreaterThanOrEqual(5);
@@ -93,7 +136,11 @@ describe('a tree’s plan', () => {
     expect(base.basis).toBe('latitude');
     const seenOn = addDays(base.timeline!.candleStart, -12);
     const moved = planForTree({
-      species: sp('pinus-sylvestris'), tree: refinedStrong, today: '2027-05-20', hemisphere: 'north', latitude: 45,
+      species: sp('pinus-sylvestris'),
+      tree: refinedStrong,
+      today: '2027-05-20',
+      hemisphere: 'north',
+      latitude: 45,
       observations: [{ date: seenOn, shoot: 'candle-extending' }],
     });
     expect(moved.basis).toBe('observed');
@@ -124,7 +171,13 @@ describe('a tree’s plan', () => {
   });
 
   it('a recovering tree gets no candle work and no repotting', () => {
-    const plan = planForTree({ species: sp('pinus-sylvestris'), tree: { stage: 'recovery', health: 'weak', recentlyCollected: true }, today: '2027-04-30', hemisphere: 'north', latitude: 45 });
+    const plan = planForTree({
+      species: sp('pinus-sylvestris'),
+      tree: { stage: 'recovery', health: 'weak', recentlyCollected: true },
+      today: '2027-04-30',
+      hemisphere: 'north',
+      latitude: 45,
+    });
     expect(plan.windows.map((w) => w.task)).not.toContain('candle-work');
     expect(plan.windows.map((w) => w.task)).not.toContain('repot');
   });
@@ -133,8 +186,17 @@ describe('a tree’s plan', () => {
     const plan = planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today: '2027-04-30', hemisphere: 'north', latitude: 45 });
     const c = plan.windows.find((w) => w.task === 'candle-work')!;
     const today = c.from;
-    expect(dueSoon(planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today, hemisphere: 'north', latitude: 45 }), today).map((w) => w.task)).toContain('candle-work');
-    const after = planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today, hemisphere: 'north', latitude: 45, observations: [{ date: today, task: 'candle-work' }] });
+    expect(
+      dueSoon(planForTree({ species: sp('pinus-sylvestris'), tree: refinedStrong, today, hemisphere: 'north', latitude: 45 }), today).map((w) => w.task),
+    ).toContain('candle-work');
+    const after = planForTree({
+      species: sp('pinus-sylvestris'),
+      tree: refinedStrong,
+      today,
+      hemisphere: 'north',
+      latitude: 45,
+      observations: [{ date: today, task: 'candle-work' }],
+    });
     expect(after.windows.find((w) => w.task === 'candle-work')!.doneOn).toBe(today);
     expect(dueSoon(after, today).map((w) => w.task)).not.toContain('candle-work');
   });

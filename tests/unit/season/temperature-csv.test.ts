@@ -41,7 +41,10 @@ describe('plain date,tmin,tmax', () => {
     const r = parseTemperatureCsv('date,tmin,tmax\n2027-03-02,8,22\n2027-03-01,2.0,11.0\n');
     expect(r.format).toBe('plain');
     expect(r.errors).toEqual([]);
-    expect(r.days).toEqual([{ date: '2027-03-01', tmin: 2, tmax: 11 }, { date: '2027-03-02', tmin: 8, tmax: 22 }]);
+    expect(r.days).toEqual([
+      { date: '2027-03-01', tmin: 2, tmax: 11 },
+      { date: '2027-03-02', tmin: 8, tmax: 22 },
+    ]);
   });
 
   it('reports every bad row by its line', () => {

@@ -37,8 +37,13 @@ async function signInWithPassword(options: AuthOptions, origin: string) {
   const c = await csrf(options, origin);
   const r = await AuthHandler({
     req: {
-      action: 'callback', providerId: 'credentials', method: 'POST', origin, headers: {},
-      cookies: jar(c.cookies), body: { email: 'member@candlewise.test', password: DEMO_PASSWORD, csrfToken: c.token },
+      action: 'callback',
+      providerId: 'credentials',
+      method: 'POST',
+      origin,
+      headers: {},
+      cookies: jar(c.cookies),
+      body: { email: 'member@candlewise.test', password: DEMO_PASSWORD, csrfToken: c.token },
     },
     options,
   });

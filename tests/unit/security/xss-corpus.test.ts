@@ -10,11 +10,51 @@ const vectors = loadVectors();
 
 // Elements that run script, load active content, restyle the page or submit data.
 const FORBIDDEN = new Set([
-  'script', 'iframe', 'object', 'embed', 'style', 'frame', 'frameset', 'applet', 'base', 'link', 'meta', 'form',
-  'button', 'input', 'textarea', 'select', 'svg', 'math', 'template', 'noscript', 'portal', 'video', 'audio', 'source',
+  'script',
+  'iframe',
+  'object',
+  'embed',
+  'style',
+  'frame',
+  'frameset',
+  'applet',
+  'base',
+  'link',
+  'meta',
+  'form',
+  'button',
+  'input',
+  'textarea',
+  'select',
+  'svg',
+  'math',
+  'template',
+  'noscript',
+  'portal',
+  'video',
+  'audio',
+  'source',
 ]);
 // Attributes that hold a URL (hast property names).
-const URL_PROPS = new Set(['href', 'src', 'srcSet', 'action', 'formAction', 'cite', 'poster', 'background', 'longDesc', 'data', 'ping', 'useMap', 'xLinkHref', 'codeBase', 'manifest', 'dynsrc', 'lowsrc']);
+const URL_PROPS = new Set([
+  'href',
+  'src',
+  'srcSet',
+  'action',
+  'formAction',
+  'cite',
+  'poster',
+  'background',
+  'longDesc',
+  'data',
+  'ping',
+  'useMap',
+  'xLinkHref',
+  'codeBase',
+  'manifest',
+  'dynsrc',
+  'lowsrc',
+]);
 const SAFE_SCHEMES = new Set(['http', 'https', 'mailto']);
 
 /** The scheme a browser would see: it drops ASCII whitespace and control characters first. */
@@ -34,7 +74,12 @@ function problems(html: string): string[] {
         if (/^on/i.test(name)) out.push(`${name} attribute on <${el.tagName}>`);
         if (name === 'style') out.push(`style attribute on <${el.tagName}>`);
         if (URL_PROPS.has(name) && value != null) {
-          const urls = name === 'srcSet' ? String(value).split(',').map((c) => c.trim().split(/\s+/)[0]) : [String(Array.isArray(value) ? value.join(' ') : value)];
+          const urls =
+            name === 'srcSet'
+              ? String(value)
+                  .split(',')
+                  .map((c) => c.trim().split(/\s+/)[0])
+              : [String(Array.isArray(value) ? value.join(' ') : value)];
           for (const u of urls) {
             const s = schemeOf(u);
             if (s !== null && !SAFE_SCHEMES.has(s)) out.push(`${name}="${u.slice(0, 60)}" on <${el.tagName}>`);
@@ -79,7 +124,9 @@ describe('XSS corpora through the Markdown pipeline', () => {
   });
 
   it('keeps ordinary Markdown working (the sanitizer is not simply dropping everything)', async () => {
-    const html = await renderMarkdown('# Pines\n\n**Pinch** the [candle](https://example.org/c) — see [answer](/answers/abc123xyz).\n\n| a | b |\n|---|---|\n| 1 | 2 |\n\n> quote\n\n`code`');
+    const html = await renderMarkdown(
+      '# Pines\n\n**Pinch** the [candle](https://example.org/c) — see [answer](/answers/abc123xyz).\n\n| a | b |\n|---|---|\n| 1 | 2 |\n\n> quote\n\n`code`',
+    );
     const tree = fromHtml(html, { fragment: true });
     const tags: string[] = [];
     const walk = (n: Nodes) => {

@@ -1,7 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { createActor, fromPromise, waitFor } from 'xstate';
 import {
-  askMachine, canReach, disabledReason, firstOpenStep, questionList, toEvaluateBody, type AskAnswers, type AskInput, type SaveRequest, type TreeOption,
+  askMachine,
+  canReach,
+  disabledReason,
+  firstOpenStep,
+  questionList,
+  toEvaluateBody,
+  type AskAnswers,
+  type AskInput,
+  type SaveRequest,
+  type TreeOption,
 } from '@/lib/wizard/ask.machine';
 import { evaluate } from '@/lib/wizard/engine';
 import { evaluateBodySchema, type EvaluateBody } from '@/lib/validation/wizard';
@@ -31,12 +40,23 @@ function start(input: AskInput = {}) {
 }
 
 const full: AskAnswers = {
-  species: 'pinus-sylvestris', branching: 'tertiary', shoot: 'candle-extending', position: 'beyond-silhouette',
-  health: 'average', date: '2027-05-10',
+  species: 'pinus-sylvestris',
+  branching: 'tertiary',
+  shoot: 'candle-extending',
+  position: 'beyond-silhouette',
+  health: 'average',
+  date: '2027-05-10',
 };
 
 const wrenTrees: TreeOption[] = [
-  { id: 'tree-a', name: 'Leaning pine', speciesSlug: 'pinus-sylvestris', speciesName: 'Scots pine', container: { shape: 'oval', lengthCm: 40, widthCm: 30 }, recentlyCollected: false },
+  {
+    id: 'tree-a',
+    name: 'Leaning pine',
+    speciesSlug: 'pinus-sylvestris',
+    speciesName: 'Scots pine',
+    container: { shape: 'oval', lengthCm: 40, widthCm: 30 },
+    recentlyCollected: false,
+  },
   { id: 'tree-b', name: 'Hill collected', speciesSlug: 'pinus-mugo', speciesName: 'Mountain pine', recentlyCollected: true },
   { id: 'tree-c', name: 'Unknown one', speciesName: 'Pinus imaginaria', recentlyCollected: false },
 ];
@@ -69,7 +89,10 @@ describe('ask machine: the order of the questions', () => {
   });
 
   it('skips the silhouette question for a development branch and leaves the position out', async () => {
-    const { actor, calls, step } = start({ answers: { species: 'pinus-sylvestris', health: 'strong', shoot: 'needles-hardened', date: '2027-08-20', position: 'interior' }, step: 'branching' });
+    const { actor, calls, step } = start({
+      answers: { species: 'pinus-sylvestris', health: 'strong', shoot: 'needles-hardened', date: '2027-08-20', position: 'interior' },
+      step: 'branching',
+    });
     expect(step()).toBe('branching');
     actor.send({ type: 'SET', answers: { branching: 'secondary', backBuds: true } });
     actor.send({ type: 'NEXT' });
@@ -138,7 +161,10 @@ describe('ask machine: the order of the questions', () => {
 
 describe('ask machine: a recovering tree', () => {
   it('skips branching and the outline for a weak tree and leaves them out of the body', async () => {
-    const { actor, calls, step } = start({ answers: { species: 'pinus-sylvestris', date: '2027-05-10', branching: 'tertiary', position: 'beyond-silhouette', candleStrength: 'strong' }, step: 'health' });
+    const { actor, calls, step } = start({
+      answers: { species: 'pinus-sylvestris', date: '2027-05-10', branching: 'tertiary', position: 'beyond-silhouette', candleStrength: 'strong' },
+      step: 'health',
+    });
     actor.send({ type: 'SET', answers: { health: 'weak' } });
     expect(questionList(actor.getSnapshot().context.answers)).toEqual(['species', 'health', 'shoot', 'when']);
     actor.send({ type: 'NEXT' });
@@ -169,7 +195,10 @@ describe('ask machine: a recovering tree', () => {
           const reference = evaluate(evaluateBodySchema.parse(toEvaluateBody(base)), shipped(slug), north);
           for (const branching of ['primary', 'secondary', 'tertiary'] as const) {
             for (const position of ['beyond-silhouette', 'at-silhouette', 'interior'] as const) {
-              for (const extra of [{ candleStrength: 'strong' as const, backBuds: true }, { candleStrength: 'weak' as const, backBuds: false }]) {
+              for (const extra of [
+                { candleStrength: 'strong' as const, backBuds: true },
+                { candleStrength: 'weak' as const, backBuds: false },
+              ]) {
                 const body = toEvaluateBody({ ...base, branching, position, ...extra });
                 // Nothing skipped reaches the engine…
                 expect(body).toEqual(toEvaluateBody(base));
@@ -273,7 +302,13 @@ describe('ask machine: fresh start, the offer to continue, and start over', () =
 
   it('has "start over" on every step and on the answer, forgetting the tree too', async () => {
     for (const at of ['health', 'shoot', 'branching', 'position', 'when'] as const) {
-      const { actor, step } = start({ answers: { ...full, tree: 'tree-a', treeSpecies: 'pinus-sylvestris' }, treeId: 'tree-a', trees: wrenTrees, today: '2027-05-11', step: at });
+      const { actor, step } = start({
+        answers: { ...full, tree: 'tree-a', treeSpecies: 'pinus-sylvestris' },
+        treeId: 'tree-a',
+        trees: wrenTrees,
+        today: '2027-05-11',
+        step: at,
+      });
       expect(step()).toBe(at);
       actor.send({ type: 'RESTART' });
       expect(step()).toBe('tree');
@@ -295,7 +330,10 @@ describe('ask machine: fresh start, the offer to continue, and start over', () =
   });
 
   it('drops a tree from the offered run that is no longer the member’s', () => {
-    const { actor } = start({ resume: { ...run, answers: { ...run.answers, tree: 'tree-gone', treeSpecies: 'pinus-sylvestris' }, treeId: 'tree-gone' }, trees: wrenTrees });
+    const { actor } = start({
+      resume: { ...run, answers: { ...run.answers, tree: 'tree-gone', treeSpecies: 'pinus-sylvestris' }, treeId: 'tree-gone' },
+      trees: wrenTrees,
+    });
     actor.send({ type: 'CONTINUE' });
     expect(actor.getSnapshot().context.treeId).toBeUndefined();
     expect(actor.getSnapshot().context.step).toBe('tree');

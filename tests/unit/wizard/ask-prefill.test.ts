@@ -19,7 +19,12 @@ function askedFrom(t: TreeInput) {
 
 describe('one set of limits for a tree and the wizard', () => {
   it('every pot a tree accepts, the wizard accepts, and the reverse', () => {
-    for (const [shape, lengthCm, widthCm] of [['round', 350, null], ['rectangle', POT_MAX_CM, POT_MAX_CM], ['oval', POT_MIN_CM, POT_MIN_CM], ['rectangle', 12.5, 8]] as const) {
+    for (const [shape, lengthCm, widthCm] of [
+      ['round', 350, null],
+      ['rectangle', POT_MAX_CM, POT_MAX_CM],
+      ['oval', POT_MIN_CM, POT_MIN_CM],
+      ['rectangle', 12.5, 8],
+    ] as const) {
       const t = tree({ containerShape: shape, containerLengthCm: lengthCm, containerWidthCm: widthCm });
       const answers = askedFrom(t);
       expect(answers.container).toEqual({ shape, lengthCm, ...(widthCm !== null ? { widthCm } : {}) });
@@ -27,7 +32,9 @@ describe('one set of limits for a tree and the wizard', () => {
       expect(evaluateBodySchema.safeParse(body).success).toBe(true);
     }
     for (const bad of [POT_MAX_CM + 1, 0, 0.05]) {
-      expect(treeInputSchema.safeParse({ ...emptyTree, name: 'x', speciesSlug: 'pinus-sylvestris', containerShape: 'round', containerLengthCm: bad }).success).toBe(false);
+      expect(
+        treeInputSchema.safeParse({ ...emptyTree, name: 'x', speciesSlug: 'pinus-sylvestris', containerShape: 'round', containerLengthCm: bad }).success,
+      ).toBe(false);
       expect(containerSchema.safeParse({ shape: 'round', lengthCm: bad }).success).toBe(false);
     }
   });
@@ -42,6 +49,9 @@ describe('one set of limits for a tree and the wizard', () => {
     expect(prefillFromQuery({ shape: 'round', lengthCm: '401' }, known).container).toBeUndefined();
     expect(prefillFromQuery({ shape: 'square', lengthCm: '30' }, known).container).toBeUndefined();
     expect(prefillFromQuery({ shape: 'oval', lengthCm: '30', widthCm: '' }, known).container).toBeUndefined();
-    expect(prefillFromQuery({ shape: 'round', lengthCm: '350', species: 'pinus-sylvestris' }, known)).toEqual({ species: 'pinus-sylvestris', container: { shape: 'round', lengthCm: 350 } });
+    expect(prefillFromQuery({ shape: 'round', lengthCm: '350', species: 'pinus-sylvestris' }, known)).toEqual({
+      species: 'pinus-sylvestris',
+      container: { shape: 'round', lengthCm: 350 },
+    });
   });
 });

@@ -7,7 +7,15 @@ describe('re-run comparison', () => {
   it('finds no change for the same inputs, whatever the key order of the stored copy', () => {
     const a = evaluate(ask(), scots, north);
     const reverseKeys = (v: unknown): unknown =>
-      Array.isArray(v) ? v.map(reverseKeys) : v && typeof v === 'object' ? Object.fromEntries(Object.entries(v).reverse().map(([k, x]) => [k, reverseKeys(x)])) : v;
+      Array.isArray(v)
+        ? v.map(reverseKeys)
+        : v && typeof v === 'object'
+          ? Object.fromEntries(
+              Object.entries(v)
+                .reverse()
+                .map(([k, x]) => [k, reverseKeys(x)]),
+            )
+          : v;
     const reordered = reverseKeys(a) as typeof a;
     reordered.fertilizer = { ...a.fertilizer, pelletsPerPile: { max: 8, min: 6 } };
     reordered.reasons = a.reasons.map((r) => ({ source: r.source, text: r.text, rule: r.rule }));
@@ -39,7 +47,12 @@ describe('re-run comparison', () => {
   it('re-runs a stored 1.0.0 answer that lacks the v2 fields and says what changed', () => {
     const now = evaluate(ask({ candleStrength: 'strong' }), scots, north);
     const v1 = {
-      action: 'pinch', stage: 'refinement', season: 'spring', keepNeedlePairs: 2, engineVersion: '1.0.0', speciesRevision: now.speciesRevision,
+      action: 'pinch',
+      stage: 'refinement',
+      season: 'spring',
+      keepNeedlePairs: 2,
+      engineVersion: '1.0.0',
+      speciesRevision: now.speciesRevision,
       reasons: [{ rule: 'refine.keep-two-pairs-single-flush', text: 'Leave at least two pairs of needles.', source: 'common practice' }],
       fertilizer: now.fertilizer,
     } as unknown as Parameters<typeof compareResults>[0];

@@ -1,8 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { circleArea, ellipseArea, rectangleArea, surfaceAreaCm2 } from '@/lib/wizard/container';
-import {
-  K2O_TO_K, P2O5_TO_P, feedingPlan, gramsPerLitreForN, liquidFeedPpm, ozPer100GalToGramsPerLitre, pilesForSurface,
-} from '@/lib/wizard/feeding';
+import { K2O_TO_K, P2O5_TO_P, feedingPlan, gramsPerLitreForN, liquidFeedPpm, ozPer100GalToGramsPerLitre, pilesForSurface } from '@/lib/wizard/feeding';
 import { blackPine, mugo, scots } from '../../support/wizard-fixtures';
 
 describe('container soil surface', () => {
@@ -101,10 +99,24 @@ describe('feeding plan', () => {
 
   it('recovery: no pellets for a collected tree until roots show, light feeding for a weak one', () => {
     // source: University of Maryland Extension, "After planting care"; weak-tree rate: common practice, no published source
-    const collected = feedingPlan({ ...base, stage: 'recovery', season: 'summer', species: scots, recentlyCollected: true, container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
+    const collected = feedingPlan({
+      ...base,
+      stage: 'recovery',
+      season: 'summer',
+      species: scots,
+      recentlyCollected: true,
+      container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 },
+    });
     expect(collected).toMatchObject({ feedNow: false, piles: null, pelletsPerPile: null, renewWeeks: null });
     expect(collected.reasons[0].rule).toBe('feed.purpose-recovery-collected');
-    const weak = feedingPlan({ ...base, stage: 'recovery', season: 'summer', species: scots, weak: true, container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 } });
+    const weak = feedingPlan({
+      ...base,
+      stage: 'recovery',
+      season: 'summer',
+      species: scots,
+      weak: true,
+      container: { shape: 'rectangle', lengthCm: 40, widthCm: 30 },
+    });
     expect(weak.pelletsPerPile).toEqual({ min: 3, max: 4 });
     expect(weak.piles).toBe(3);
     expect(weak.reasons[0].rule).toBe('feed.purpose-recovery-weak');

@@ -45,19 +45,24 @@ describe('the engine over every shipped species', () => {
                 for (const x of [...r.reasons, ...r.fertilizer.reasons]) reached.add(x.rule);
                 const where = `${sp.slug} ${st.label} ${shoot} ${position} ${date} ${candleStrength} ${ctx.latitude}`;
                 const text = textOf(r);
-                if (r.keepNeedlePairs !== null && sp.needlesPerFascicle !== 2) problems.push(`${where}: needle pairs on a ${sp.needlesPerFascicle}-needle species`);
+                if (r.keepNeedlePairs !== null && sp.needlesPerFascicle !== 2)
+                  problems.push(`${where}: needle pairs on a ${sp.needlesPerFascicle}-needle species`);
                 if (sp.needlesPerFascicle !== 2 && /needle pairs?|pairs of needles/i.test(text)) problems.push(`${where}: says "pairs"`);
                 if (!isPine(technique) && /\bcandles?\b|decandl/i.test(text)) problems.push(`${where}: candle words off the pines`);
-                if (!isPine(technique) && (r.candleKeep !== null || r.keepNeedleBundles !== null)) problems.push(`${where}: candle or bundle counts off the pines`);
+                if (!isPine(technique) && (r.candleKeep !== null || r.keepNeedleBundles !== null))
+                  problems.push(`${where}: candle or bundle counts off the pines`);
                 if (r.action === 'decandle' && technique !== 'pine-double') problems.push(`${where}: decandled a ${technique}`);
                 if (r.action === 'decandle' && r.stage !== 'refinement') problems.push(`${where}: decandled in ${r.stage}`);
-                if (r.stage === 'recovery' && r.fertilizer.pelletsPerPile && r.fertilizer.pelletsPerPile.max > PELLETS.light.max) problems.push(`${where}: heavy feeding in recovery`);
+                if (r.stage === 'recovery' && r.fertilizer.pelletsPerPile && r.fertilizer.pelletsPerPile.max > PELLETS.light.max)
+                  problems.push(`${where}: heavy feeding in recovery`);
                 if (r.stage === 'recovery' && r.fertilizer.foliar) problems.push(`${where}: foliar feed in recovery`);
                 if (r.stage === 'recovery' && !['let-grow', 'wait'].includes(r.action)) problems.push(`${where}: ${r.action} in recovery`);
                 if (r.season === 'winter' && r.fertilizer.feedNow) problems.push(`${where}: feeding in winter`);
                 if (/elongation/i.test(text) && (technique !== 'pine-single' || r.season !== 'spring')) problems.push(`${where}: elongations promised`);
-                if (['pinch', 'prune', 'decandle', 'thin'].includes(r.action) && r.howTo.length < 2) problems.push(`${where}: ${r.action} without how-to steps`);
-                if (r.candleKeep && !(r.candleKeep.min > 0 && r.candleKeep.max < 1 && r.candleKeep.min <= r.candleKeep.max)) problems.push(`${where}: bad keep fraction`);
+                if (['pinch', 'prune', 'decandle', 'thin'].includes(r.action) && r.howTo.length < 2)
+                  problems.push(`${where}: ${r.action} without how-to steps`);
+                if (r.candleKeep && !(r.candleKeep.min > 0 && r.candleKeep.max < 1 && r.candleKeep.min <= r.candleKeep.max))
+                  problems.push(`${where}: bad keep fraction`);
                 const texts = r.cautions.map((c) => c.text);
                 if (new Set(texts).size !== texts.length) problems.push(`${where}: duplicated caution`);
                 for (const x of r.reasons) if (!(x.rule in RULES) || !x.source) problems.push(`${where}: unknown rule ${x.rule}`);
@@ -73,8 +78,16 @@ describe('the engine over every shipped species', () => {
 
   it('reaches the decision rules (those needing other inputs are checked in engine.test.ts)', () => {
     const elsewhere = [
-      'season.tropics', 'season.south-shift', 'flush.double-tropics', 'flush.double-degree-days-low', 'flush.double-no-window',
-      'flush.no-decandle-repotted', 'scope.no-rule', 'feed.mid-sized-pot', 'feed.pile-scaling', 'flush.double-window-not-yet',
+      'season.tropics',
+      'season.south-shift',
+      'flush.double-tropics',
+      'flush.double-degree-days-low',
+      'flush.double-no-window',
+      'flush.no-decandle-repotted',
+      'scope.no-rule',
+      'feed.mid-sized-pot',
+      'feed.pile-scaling',
+      'flush.double-window-not-yet',
     ];
     // Rules for groups with no shipped species yet cannot be reached by the sweep.
     const groups = new Set(shippedSpecies.map((s) => s.group));

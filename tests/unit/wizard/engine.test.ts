@@ -23,7 +23,15 @@ const spruce = shipped('picea-abies');
 const yew = shipped('taxus-baccata');
 
 function ask(over: Partial<WizardInput> = {}): WizardInput {
-  return { species: 'pinus-sylvestris', branching: 'tertiary', date: '2027-05-10', shoot: 'candle-extending', position: 'beyond-silhouette', health: 'average', ...over };
+  return {
+    species: 'pinus-sylvestris',
+    branching: 'tertiary',
+    date: '2027-05-10',
+    shoot: 'candle-extending',
+    position: 'beyond-silhouette',
+    health: 'average',
+    ...over,
+  };
 }
 const run = (over: Partial<WizardInput>, sp = scots, ctx = north) => evaluate(ask({ species: sp.slug, ...over }), sp, ctx);
 const ruleIds = (r: ReturnType<typeof evaluate>) => r.reasons.map((x) => x.rule);
@@ -236,7 +244,8 @@ describe('defect 7: successive elongations only where they hold', () => {
     expect(r.reasons.find((x) => x.rule === 'pine.successive-elongations')!.text).toMatch(/not a second flush/);
   });
   it('never for five-needle pines or bristlecones, nor in autumn', () => {
-    for (const sp of [whitePine, bristlecone]) expect(ruleIds(run({ health: 'strong', candleStrength: 'strong' }, sp))).not.toContain('pine.successive-elongations');
+    for (const sp of [whitePine, bristlecone])
+      expect(ruleIds(run({ health: 'strong', candleStrength: 'strong' }, sp))).not.toContain('pine.successive-elongations');
     expect(ruleIds(run({ health: 'strong', date: '2027-10-05', shoot: 'candle-extending' }))).not.toContain('pine.successive-elongations');
   });
 });
@@ -308,14 +317,19 @@ describe('defect 9: season and latitude', () => {
 
 describe('defect 10: no duplicated cautions, one wording for the two-year rule', () => {
   it('shows the wild-collecting caution once even when the species carries one too', () => {
-    const sp = { ...scots, cautions: [...scots.cautions, { text: 'Collecting from the wild needs permission from the landowner.', source: 'common practice' }] };
+    const sp = {
+      ...scots,
+      cautions: [...scots.cautions, { text: 'Collecting from the wild needs permission from the landowner.', source: 'common practice' }],
+    };
     const r = run({ recentlyCollected: true }, sp);
     expect(r.cautions.filter((c) => /collecting from the wild/i.test(c.text))).toHaveLength(1);
     const texts = r.cautions.map((c) => c.text);
     expect(new Set(texts).size).toBe(texts.length);
   });
   it('says "about two years", never "two seasons"', () => {
-    const all = Object.values(RULES).map((r) => r.text).join(' ');
+    const all = Object.values(RULES)
+      .map((r) => r.text)
+      .join(' ');
     expect(all).not.toMatch(/two seasons/);
     expect(RULES['stage.recovery-collected'].text).toMatch(/about two years/);
   });
@@ -323,17 +337,27 @@ describe('defect 10: no duplicated cautions, one wording for the two-year rule',
 
 describe('how-to and terms', () => {
   it('every acting answer has steps, and every trade word used is explained', () => {
-    for (const [over, sp] of [[{ candleStrength: 'strong' }, scots], [{ date: '2027-06-20', shoot: 'needles-opening', health: 'strong' }, blackPine], [{ date: '2027-10-05', shoot: 'needles-hardened' }, scots]] as const) {
+    for (const [over, sp] of [
+      [{ candleStrength: 'strong' }, scots],
+      [{ date: '2027-06-20', shoot: 'needles-opening', health: 'strong' }, blackPine],
+      [{ date: '2027-10-05', shoot: 'needles-hardened' }, scots],
+    ] as const) {
       const r = run(over as Partial<WizardInput>, sp);
       expect(r.howTo.length).toBeGreaterThan(1);
       const text = allText(r);
-      for (const [word, term] of [['candle', 'candle'], ['silhouette', 'silhouette'], ['refinement', 'refinement']]) {
+      for (const [word, term] of [
+        ['candle', 'candle'],
+        ['silhouette', 'silhouette'],
+        ['refinement', 'refinement'],
+      ]) {
         if (new RegExp(`\\b${word}`, 'i').test(text)) expect(r.terms.map((t) => t.term)).toContain(term);
       }
     }
   });
   it('reasons use plain words, not figurative phrasing', () => {
-    const all = Object.values(RULES).map((r) => r.text).join(' ');
+    const all = Object.values(RULES)
+      .map((r) => r.text)
+      .join(' ');
     expect(all).not.toMatch(/traffic|very surface|elongating cylinder/);
   });
 });

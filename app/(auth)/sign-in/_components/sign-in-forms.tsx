@@ -31,7 +31,7 @@ export function SignInForms({ callbackUrl, email = '' }: { callbackUrl: string; 
       router.push(safeCallbackPath(callbackUrl, window.location.origin));
       router.refresh();
     } else {
-      setError(res?.status === 429 ? messages.RateLimited : messages[res?.error ?? ''] ?? messages.CredentialsSignin);
+      setError(res?.status === 429 ? messages.RateLimited : (messages[res?.error ?? ''] ?? messages.CredentialsSignin));
     }
   }
 
@@ -46,23 +46,39 @@ export function SignInForms({ callbackUrl, email = '' }: { callbackUrl: string; 
   return (
     <div className="space-y-6">
       <form onSubmit={onPassword} className="card space-y-4" aria-labelledby="pw-heading" data-testid="password-form">
-        <h2 id="pw-heading" className="text-xl">With your password</h2>
+        <h2 id="pw-heading" className="text-xl">
+          With your password
+        </h2>
         <div>
-          <label htmlFor="email" className="field-label">E-mail</label>
+          <label htmlFor="email" className="field-label">
+            E-mail
+          </label>
           <input id="email" name="email" type="email" autoComplete="email" required className="field-input" defaultValue={email} />
         </div>
         <div>
-          <label htmlFor="password" className="field-label">Password</label>
+          <label htmlFor="password" className="field-label">
+            Password
+          </label>
           <input id="password" name="password" type="password" autoComplete="current-password" required className="field-input" />
         </div>
-        {error ? <p role="alert" className="field-error">{error}</p> : null}
-        <button type="submit" className="btn-primary w-full" disabled={pending}>{pending ? 'Signing in…' : 'Sign in'}</button>
+        {error ? (
+          <p role="alert" className="field-error">
+            {error}
+          </p>
+        ) : null}
+        <button type="submit" className="btn-primary w-full" disabled={pending}>
+          {pending ? 'Signing in…' : 'Sign in'}
+        </button>
       </form>
       <form onSubmit={onLink} className="card space-y-4" aria-labelledby="link-heading" data-testid="link-form">
-        <h2 id="link-heading" className="text-xl">With a link by e-mail</h2>
+        <h2 id="link-heading" className="text-xl">
+          With a link by e-mail
+        </h2>
         <p className="text-sm text-stone-700">We send a link that signs you in once, within 15 minutes.</p>
         <div>
-          <label htmlFor="link-email" className="field-label">E-mail</label>
+          <label htmlFor="link-email" className="field-label">
+            E-mail
+          </label>
           <input id="link-email" name="email" type="email" autoComplete="email" required className="field-input" defaultValue={email} />
         </div>
         <div role="status" aria-live="polite">

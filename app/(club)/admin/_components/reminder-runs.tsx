@@ -13,12 +13,21 @@ function Progress({ run }: { run: ReminderRunDto }) {
         {' · '}
         {run.total === null ? 'listing members…' : run.finished ? 'finished' : `${done} of ${run.total} members done`}
       </p>
-      {run.total ? <progress className="h-3 w-full" max={run.total} value={done} aria-label={`Week of ${run.weekOf}: ${done} of ${run.total} members done`} /> : null}
+      {run.total ? (
+        <progress className="h-3 w-full" max={run.total} value={done} aria-label={`Week of ${run.weekOf}: ${done} of ${run.total} members done`} />
+      ) : null}
       <p className="text-sm text-stone-700">
         <span data-testid="run-sent">{run.sent} sent</span>
         {' · '}
         <span data-testid="run-skipped">{run.skipped} skipped (nothing due, or already reminded that week)</span>
-        {run.failed ? <>{' · '}<span className="field-error" data-testid="run-failed">{run.failed} failed</span></> : null}
+        {run.failed ? (
+          <>
+            {' · '}
+            <span className="field-error" data-testid="run-failed">
+              {run.failed} failed
+            </span>
+          </>
+        ) : null}
       </p>
     </div>
   );
@@ -50,12 +59,27 @@ export function ReminderRuns({ initial, thisMonday }: { initial: ReminderRunDto[
     <div className="card space-y-4" data-testid="reminder-runs">
       <div className="flex flex-wrap items-end gap-3">
         <div>
-          <label htmlFor="week-of" className="field-label">Week of</label>
-          <input id="week-of" type="date" className="field-input" value={weekOf} onChange={(e) => setWeekOf(e.target.value)} aria-describedby={error ? 'week-of-error' : undefined} />
+          <label htmlFor="week-of" className="field-label">
+            Week of
+          </label>
+          <input
+            id="week-of"
+            type="date"
+            className="field-input"
+            value={weekOf}
+            onChange={(e) => setWeekOf(e.target.value)}
+            aria-describedby={error ? 'week-of-error' : undefined}
+          />
         </div>
-        <button type="button" className="btn-primary" onClick={() => void start()} disabled={busy} data-testid="start-reminders">Send the week’s reminders</button>
+        <button type="button" className="btn-primary" onClick={() => void start()} disabled={busy} data-testid="start-reminders">
+          Send the week’s reminders
+        </button>
       </div>
-      {error ? <p id="week-of-error" role="alert" className="field-error">{error}</p> : null}
+      {error ? (
+        <p id="week-of-error" role="alert" className="field-error">
+          {error}
+        </p>
+      ) : null}
       <div aria-live="polite" className="space-y-4">
         {runs.length === 0 ? <p className="text-stone-700">No reminders sent yet.</p> : runs.map((r) => <Progress key={r.id} run={r} />)}
       </div>

@@ -19,8 +19,14 @@ const who = (u: UserDto) => (u.name ? `${u.name} (${u.email})` : u.email);
 /** The words of the confirmation: the person, and what they will become. */
 function describeChange(u: UserDto, d: Draft): string {
   const parts: string[] = [];
-  if (d.role !== u.role) parts.push(`make ${who(u)} ${roleLabels[d.role].toLowerCase().startsWith('a') ? 'an' : 'a'} ${roleLabels[d.role]} (now ${roleLabels[u.role]})`);
-  if (d.disabled !== u.disabled) parts.push(d.disabled ? `disable ${parts.length ? 'their' : `${who(u)}’s`} account: they are signed out and cannot sign in` : `enable ${parts.length ? 'their' : `${who(u)}’s`} account again`);
+  if (d.role !== u.role)
+    parts.push(`make ${who(u)} ${roleLabels[d.role].toLowerCase().startsWith('a') ? 'an' : 'a'} ${roleLabels[d.role]} (now ${roleLabels[u.role]})`);
+  if (d.disabled !== u.disabled)
+    parts.push(
+      d.disabled
+        ? `disable ${parts.length ? 'their' : `${who(u)}’s`} account: they are signed out and cannot sign in`
+        : `enable ${parts.length ? 'their' : `${who(u)}’s`} account again`,
+    );
   const s = parts.join(', and ');
   return `${s.charAt(0).toUpperCase()}${s.slice(1)}?`;
 }
@@ -70,7 +76,9 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
       await sendJson(`/api/users/${u.id}`, 'PATCH', body);
       await mutate();
       setDrafts(({ [u.id]: _done, ...rest }) => rest);
-      const parts = [body.role ? `now ${roleLabels[body.role]}` : null, body.disabled === undefined ? null : body.disabled ? 'disabled' : 'enabled'].filter(Boolean);
+      const parts = [body.role ? `now ${roleLabels[body.role]}` : null, body.disabled === undefined ? null : body.disabled ? 'disabled' : 'enabled'].filter(
+        Boolean,
+      );
       setResults((r) => ({ ...r, [u.id]: { ok: true, text: `Saved: ${u.name ?? u.email} is ${parts.join(' and ')}. It applies from their next request.` } }));
     } catch (e) {
       setResults((r) => ({ ...r, [u.id]: { ok: false, text: `Not saved: ${(e as Error).message}` } }));
@@ -97,7 +105,11 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
             disabled={self || busy}
             onChange={(e) => setDraft(u, { role: e.target.value as Role })}
           >
-            {roleOptions.map((r) => <option key={r} value={r}>{roleLabels[r]}</option>)}
+            {roleOptions.map((r) => (
+              <option key={r} value={r}>
+                {roleLabels[r]}
+              </option>
+            ))}
           </select>
           <select
             aria-label={`Account of ${who(u)}`}
@@ -128,7 +140,12 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
           )}
         </div>
         {isConfirming ? (
-          <div role="alertdialog" aria-labelledby={`confirm-q-${layout}-${u.id}`} className="max-w-md space-y-2 rounded-lg border border-sun-500 bg-sun-100 p-3" data-testid="role-confirm">
+          <div
+            role="alertdialog"
+            aria-labelledby={`confirm-q-${layout}-${u.id}`}
+            className="max-w-md space-y-2 rounded-lg border border-sun-500 bg-sun-100 p-3"
+            data-testid="role-confirm"
+          >
             <p id={`confirm-q-${layout}-${u.id}`}>{describeChange(u, d)}</p>
             <div className="flex flex-wrap gap-2">
               <button type="button" className="btn-primary" data-focus={`confirm-${u.id}`} disabled={busy} onClick={() => void save(u)}>
@@ -148,7 +165,13 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
             </div>
           </div>
         ) : null}
-        <p role="status" tabIndex={-1} data-focus={`result-${u.id}`} data-testid="user-result" className={`text-sm ${result?.ok === false ? 'text-clay-700' : 'text-moss-800'} ${result ? '' : 'sr-only'}`}>
+        <p
+          role="status"
+          tabIndex={-1}
+          data-focus={`result-${u.id}`}
+          data-testid="user-result"
+          className={`text-sm ${result?.ok === false ? 'text-clay-700' : 'text-moss-800'} ${result ? '' : 'sr-only'}`}
+        >
           {result?.text}
         </p>
       </div>
@@ -182,7 +205,9 @@ export function UsersTable({ initial, currentUserId }: { initial: UserDto[]; cur
   return (
     <div className="space-y-3">
       <div className="max-w-sm">
-        <label htmlFor="user-search" className="field-label">Search by name or e-mail</label>
+        <label htmlFor="user-search" className="field-label">
+          Search by name or e-mail
+        </label>
         <input id="user-search" type="search" className="field-input" value={q} onChange={(e) => setQ(e.target.value)} />
       </div>
       <p className="text-sm text-stone-700">Pick a role or account state, then Save: nothing changes until you confirm.</p>

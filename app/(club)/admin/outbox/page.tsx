@@ -10,7 +10,9 @@ export default async function OutboxPage() {
   return (
     <div className="space-y-6">
       <h1 className="page-title">Outbox</h1>
-      <p className="text-stone-700">Mail caught by the local mail fake (development and demo). In production mail goes to the configured SMTP server instead.</p>
+      <p className="text-stone-700">
+        Mail caught by the local mail fake (development and demo). In production mail goes to the configured SMTP server instead.
+      </p>
       {messages.length === 0 ? <p className="card">No messages yet.</p> : null}
       <ul className="space-y-4" data-testid="outbox">
         {messages.map((m) => (
@@ -25,14 +27,26 @@ export default async function OutboxPage() {
                 <h3 className="mb-1 text-sm font-semibold text-stone-800">As formatted (HTML part)</h3>
                 {m.html ? (
                   // Sandboxed with no permissions: no scripts, no forms, no same-origin access.
-                  <iframe sandbox="" title={`HTML part of “${m.subject}” to ${m.to.join(', ')}`} srcDoc={m.html} loading="lazy" className="h-96 w-full rounded border border-stone-300 bg-white" data-testid="outbox-html" />
+                  <iframe
+                    sandbox=""
+                    title={`HTML part of “${m.subject}” to ${m.to.join(', ')}`}
+                    srcDoc={m.html}
+                    loading="lazy"
+                    className="h-96 w-full rounded border border-stone-300 bg-white"
+                    data-testid="outbox-html"
+                  />
                 ) : (
                   <p className="text-sm text-stone-700">No HTML part.</p>
                 )}
               </div>
               <div className="min-w-0">
                 <h3 className="mb-1 text-sm font-semibold text-stone-800">Plain text part</h3>
-                <pre className="max-h-96 overflow-auto whitespace-pre-wrap break-words rounded border border-stone-300 bg-stone-50 p-3 font-sans text-sm text-stone-800" data-testid="outbox-text">{m.text}</pre>
+                <pre
+                  className="max-h-96 overflow-auto whitespace-pre-wrap break-words rounded border border-stone-300 bg-stone-50 p-3 font-sans text-sm text-stone-800"
+                  data-testid="outbox-text"
+                >
+                  {m.text}
+                </pre>
               </div>
             </div>
           </li>

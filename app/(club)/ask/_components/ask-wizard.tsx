@@ -5,7 +5,17 @@ import { useSearchParams } from 'next/navigation';
 import { useMachine } from '@xstate/react';
 import { fromPromise } from 'xstate';
 import {
-  askMachine, askSteps, disabledReason, firstStep, questionList, resumedAnswers, type AskAnswers, type AskInput, type AskStep, type SaveRequest, type TreeOption,
+  askMachine,
+  askSteps,
+  disabledReason,
+  firstStep,
+  questionList,
+  resumedAnswers,
+  type AskAnswers,
+  type AskInput,
+  type AskStep,
+  type SaveRequest,
+  type TreeOption,
 } from '@/lib/wizard/ask.machine';
 import { bootPlan, freshParams, isUnfinished, resumeQuestion, type StoredRun } from '@/lib/wizard/ask-resume';
 import type { EvaluateBody } from '@/lib/validation/wizard';
@@ -20,7 +30,14 @@ import { WorkedOutOnPhone } from '@/components/offline/worked-out-on-phone';
 const STORAGE_KEY = 'candlewise.ask.v2';
 
 const stepTitles: Record<AskStep, string> = {
-  tree: 'Your tree', species: 'Species', health: 'Health', shoot: 'Shoot', branching: 'Branching', position: 'Outline', when: 'When and where', answer: 'Answer',
+  tree: 'Your tree',
+  species: 'Species',
+  health: 'Health',
+  shoot: 'Shoot',
+  branching: 'Branching',
+  position: 'Outline',
+  when: 'When and where',
+  answer: 'Answer',
 };
 
 const machine = askMachine.provide({
@@ -81,7 +98,12 @@ export function AskWizard(props: AskWizardProps) {
     window.history.replaceState(null, '', `${window.location.pathname}${qs ? `?${qs}` : ''}`);
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
-  if (!boot) return <p className="text-stone-700" data-testid="ask-loading">Loading the questions…</p>;
+  if (!boot)
+    return (
+      <p className="text-stone-700" data-testid="ask-loading">
+        Loading the questions…
+      </p>
+    );
   return <Wizard {...props} boot={boot} />;
 }
 
@@ -193,8 +215,12 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
           </h2>
           <p className="text-stone-700">You started these questions earlier and did not finish.</p>
           <div className="flex flex-wrap gap-3">
-            <button type="button" className="btn-primary" data-testid="resume-continue" onClick={() => send({ type: 'CONTINUE' })}>Continue</button>
-            <button type="button" className="btn-secondary" data-testid="resume-fresh" onClick={() => send({ type: 'RESTART' })}>Start a new question</button>
+            <button type="button" className="btn-primary" data-testid="resume-continue" onClick={() => send({ type: 'CONTINUE' })}>
+              Continue
+            </button>
+            <button type="button" className="btn-secondary" data-testid="resume-fresh" onClick={() => send({ type: 'RESTART' })}>
+              Start a new question
+            </button>
           </div>
         </section>
       </div>
@@ -209,12 +235,21 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
         <div className="mb-3 flex items-center justify-between gap-3">
           <h2 ref={heading} tabIndex={-1} className="font-sans text-base font-medium text-stone-700" data-testid="ask-progress">
             Question {index + 1} of {visible.length} · {stepTitles[step]}
-            {tree && <> · for <strong>{tree.name}</strong></>}
+            {tree && (
+              <>
+                {' '}
+                · for <strong>{tree.name}</strong>
+              </>
+            )}
           </h2>
           {startOver}
         </div>
       )}
-      {error && <p role="alert" className="mb-4 rounded-lg bg-clay-100 p-3 text-clay-700">{error}</p>}
+      {error && (
+        <p role="alert" className="mb-4 rounded-lg bg-clay-100 p-3 text-clay-700">
+          {error}
+        </p>
+      )}
 
       <div data-testid={`ask-step-${step}`}>
         {step === 'tree' && <TreeStep trees={trees} value={answers.tree} onPick={(id) => send({ type: 'PICK_TREE', treeId: id })} />}
@@ -224,7 +259,11 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
         {step === 'branching' && <BranchingStep answers={answers} onChange={set} />}
         {step === 'position' && <PositionStep value={answers.position} onChange={set} />}
         {step === 'when' && <WhenStep answers={answers} club={club} onChange={set} />}
-        {step === 'answer' && busy && <p className="text-lg" aria-live="polite">Working out the answer…</p>}
+        {step === 'answer' && busy && (
+          <p className="text-lg" aria-live="polite">
+            Working out the answer…
+          </p>
+        )}
         {step === 'answer' && result && !busy && (
           <div className="space-y-4">
             <WorkedOutOnPhone result={result} />
@@ -240,21 +279,33 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
                     onSave={(note, visibility) => send({ type: 'SAVE', note, visibility })}
                   />
                   <div className="flex flex-wrap gap-3">
-                    <Link href={doneHref} className="btn-secondary flex-1" data-testid="ask-done" onClick={forget}>Done</Link>
-                    <button type="button" className="btn-secondary flex-1" onClick={() => send({ type: 'BACK' })}>Change my answers</button>
+                    <Link href={doneHref} className="btn-secondary flex-1" data-testid="ask-done" onClick={forget}>
+                      Done
+                    </Link>
+                    <button type="button" className="btn-secondary flex-1" onClick={() => send({ type: 'BACK' })}>
+                      Change my answers
+                    </button>
                   </div>
                 </div>
               }
               after={
                 <details className="card" data-testid="calculator-section">
                   <summary className="min-h-target cursor-pointer py-2 font-display text-lg text-moss-900">Liquid feed calculator</summary>
-                  <div className="mt-3"><LiquidFeedCalculator /></div>
+                  <div className="mt-3">
+                    <LiquidFeedCalculator />
+                  </div>
                 </details>
               }
             />
             <div className="flex flex-wrap gap-3">
-              <button type="button" className="btn-secondary" onClick={() => send({ type: 'RESTART' })}>Ask about another shoot</button>
-              {signedIn && <Link href="/answers" className="btn-secondary">My answers</Link>}
+              <button type="button" className="btn-secondary" onClick={() => send({ type: 'RESTART' })}>
+                Ask about another shoot
+              </button>
+              {signedIn && (
+                <Link href="/answers" className="btn-secondary">
+                  My answers
+                </Link>
+              )}
             </div>
           </div>
         )}
@@ -273,8 +324,11 @@ function Wizard({ boot, species, club, signedIn, trees }: AskWizardProps & { boo
                 Back
               </button>
               <button
-                type="button" className="btn-primary flex-[2] text-lg" data-testid="ask-next"
-                onClick={() => send({ type: 'NEXT' })} disabled={!!reason || busy}
+                type="button"
+                className="btn-primary flex-[2] text-lg"
+                data-testid="ask-next"
+                onClick={() => send({ type: 'NEXT' })}
+                disabled={!!reason || busy}
                 aria-describedby={reason ? 'next-reason' : undefined}
               >
                 {step === 'when' ? 'Show the answer' : 'Next'}

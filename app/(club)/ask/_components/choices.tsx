@@ -10,7 +10,12 @@ export interface ChoiceOption<T extends string> {
 
 /** A group of large tap targets (native radios) with a picture and words for each option. */
 export function Choices<T extends string>({
-  name, legend, hint, options, value, onChange,
+  name,
+  legend,
+  hint,
+  options,
+  value,
+  onChange,
 }: {
   name: string;
   legend: string;
@@ -39,7 +44,10 @@ export function Choices<T extends string>({
               <span className="block text-lg font-semibold text-stone-900">{o.title}</span>
               <span className="block text-stone-700">{o.detail}</span>
             </span>
-            <span aria-hidden="true" className={`ml-auto h-6 w-6 shrink-0 rounded-full border-2 ${checked ? 'border-moss-700 bg-moss-700 shadow-[inset_0_0_0_3px_white]' : 'border-stone-400'}`} />
+            <span
+              aria-hidden="true"
+              className={`ml-auto h-6 w-6 shrink-0 rounded-full border-2 ${checked ? 'border-moss-700 bg-moss-700 shadow-[inset_0_0_0_3px_white]' : 'border-stone-400'}`}
+            />
           </label>
         );
       })}

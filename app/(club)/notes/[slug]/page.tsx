@@ -24,20 +24,38 @@ export default async function NotePage({ params, searchParams }: Props) {
   const writer = canWriteNotes(viewer);
   // After a save the librarian lands here; the notice takes the focus and says what happened.
   const saved = (await searchParams).saved;
-  const notice = !writer ? null : saved === 'published' && note.status === 'published' ? 'Saved and published: members can read this note.' : saved === 'draft' && note.status === 'draft' ? 'Saved as a draft: only librarians can see it.' : null;
+  const notice = !writer
+    ? null
+    : saved === 'published' && note.status === 'published'
+      ? 'Saved and published: members can read this note.'
+      : saved === 'draft' && note.status === 'draft'
+        ? 'Saved as a draft: only librarians can see it.'
+        : null;
   return (
     <div className="space-y-6">
-      <p className="no-print"><Link href="/notes">← Meeting notes</Link></p>
-      {notice && <div className="no-print"><FocusNotice>{notice}</FocusNotice></div>}
+      <p className="no-print">
+        <Link href="/notes">← Meeting notes</Link>
+      </p>
+      {notice && (
+        <div className="no-print">
+          <FocusNotice>{notice}</FocusNotice>
+        </div>
+      )}
       <article className="card print-plain space-y-4" data-testid="note">
         <header className="space-y-1 border-b border-stone-200 pb-4">
           <p className="text-sm font-medium uppercase tracking-wide text-bark-700">
             Meeting of <time dateTime={note.meetingDate}>{formatMeetingDate(note.meetingDate)}</time>
           </p>
-          <h1 className="page-title" data-testid="note-title">{note.title}</h1>
+          <h1 className="page-title" data-testid="note-title">
+            {note.title}
+          </h1>
           <p className="text-stone-700">
             Written by {note.authorName}
-            {note.status === 'draft' ? <span className="ml-2"><StatusBadge status="draft" /></span> : null}
+            {note.status === 'draft' ? (
+              <span className="ml-2">
+                <StatusBadge status="draft" />
+              </span>
+            ) : null}
           </p>
         </header>
         {/* Sanitized by the shared Markdown pipeline; link cards show only what the club may see. */}

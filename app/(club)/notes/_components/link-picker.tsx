@@ -20,11 +20,11 @@ const actionWord = (a: string) => actionOptions.find((o) => o.value === a)?.labe
 /** Markdown link text may not contain unescaped brackets. */
 const linkText = (s: string) => s.replace(/[[\]\\]/g, (c) => `\\${c}`);
 
-export function answerLinkMarkdown(a: LinkableAnswerDto): string {
+function answerLinkMarkdown(a: LinkableAnswerDto): string {
   return `[${linkText(`${actionWord(a.action).toLowerCase()} on ${a.speciesName}`)}](${a.url})`;
 }
 
-export function speciesLinkMarkdown(s: SpeciesItem): string {
+function speciesLinkMarkdown(s: SpeciesItem): string {
   return `[${linkText(s.commonNames[0] ?? s.botanicalName)}](/species/${s.slug})`;
 }
 
@@ -59,23 +59,53 @@ function AnswerSearch({ onInsert }: { onInsert: (md: string) => void }) {
   return (
     <div className="space-y-3">
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-5">
-        <div><label htmlFor="pick-species" className="field-label">Species name</label><input id="pick-species" className="field-input" value={f.species} onChange={set('species')} placeholder="e.g. scots" /></div>
         <div>
-          <label htmlFor="pick-action" className="field-label">Action</label>
+          <label htmlFor="pick-species" className="field-label">
+            Species name
+          </label>
+          <input id="pick-species" className="field-input" value={f.species} onChange={set('species')} placeholder="e.g. scots" />
+        </div>
+        <div>
+          <label htmlFor="pick-action" className="field-label">
+            Action
+          </label>
           <select id="pick-action" className="field-input" value={f.action} onChange={set('action')}>
-            {actionOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+            {actionOptions.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
           </select>
         </div>
-        <div><label htmlFor="pick-member" className="field-label">Member</label><input id="pick-member" className="field-input" value={f.member} onChange={set('member')} placeholder="Name" /></div>
-        <div><label htmlFor="pick-from" className="field-label">Observed from</label><input id="pick-from" type="date" className="field-input" value={f.from} onChange={set('from')} /></div>
-        <div><label htmlFor="pick-to" className="field-label">Observed to</label><input id="pick-to" type="date" className="field-input" value={f.to} onChange={set('to')} /></div>
+        <div>
+          <label htmlFor="pick-member" className="field-label">
+            Member
+          </label>
+          <input id="pick-member" className="field-input" value={f.member} onChange={set('member')} placeholder="Name" />
+        </div>
+        <div>
+          <label htmlFor="pick-from" className="field-label">
+            Observed from
+          </label>
+          <input id="pick-from" type="date" className="field-input" value={f.from} onChange={set('from')} />
+        </div>
+        <div>
+          <label htmlFor="pick-to" className="field-label">
+            Observed to
+          </label>
+          <input id="pick-to" type="date" className="field-input" value={f.to} onChange={set('to')} />
+        </div>
       </div>
       <p className="text-sm text-stone-700">Only answers their askers shared with the club are listed.</p>
       {error ? <p className="field-error">{(error as Error).message}</p> : null}
       <ul className="max-h-72 space-y-2 overflow-auto" aria-busy={isLoading} data-testid="picker-answers">
         {items.length === 0 && !isLoading ? <li className="text-stone-700">No shared answer matches.</li> : null}
         {items.map((a) => (
-          <li key={a.id} className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-stone-200 bg-white px-3 py-1" data-testid="picker-answer">
+          <li
+            key={a.id}
+            className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-stone-200 bg-white px-3 py-1"
+            data-testid="picker-answer"
+          >
             <span className="min-w-0 break-words">
               <strong>{actionWord(a.action)}</strong> · {a.speciesName} · {formatMeetingDate(a.observedOn)}
               <span className="block text-sm text-stone-700">
@@ -100,17 +130,29 @@ function AnswerSearch({ onInsert }: { onInsert: (md: string) => void }) {
 
 function SpeciesSearch({ onInsert }: { onInsert: (md: string) => void }) {
   const [q, setQ] = useState('');
-  const { data, isLoading } = useSWR<{ items: SpeciesItem[] }>(`/api/species?limit=10${q.trim() ? `&q=${encodeURIComponent(q.trim())}` : ''}`, fetcher, { keepPreviousData: true });
+  const { data, isLoading } = useSWR<{ items: SpeciesItem[] }>(`/api/species?limit=10${q.trim() ? `&q=${encodeURIComponent(q.trim())}` : ''}`, fetcher, {
+    keepPreviousData: true,
+  });
   const items = data?.items ?? [];
   return (
     <div className="space-y-3">
-      <div className="max-w-sm"><label htmlFor="pick-species-q" className="field-label">Find a species</label><input id="pick-species-q" className="field-input" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Name or misspelling" /></div>
+      <div className="max-w-sm">
+        <label htmlFor="pick-species-q" className="field-label">
+          Find a species
+        </label>
+        <input id="pick-species-q" className="field-input" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Name or misspelling" />
+      </div>
       <ul className="max-h-72 space-y-2 overflow-auto" aria-busy={isLoading} data-testid="picker-species">
         {items.length === 0 && !isLoading ? <li className="text-stone-700">No species matches.</li> : null}
         {items.map((s) => (
           <li key={s.slug} className="flex flex-wrap items-center justify-between gap-2 rounded-lg border border-stone-200 bg-white px-3 py-1">
-            <span><strong>{s.commonNames[0] ?? s.botanicalName}</strong> <em>{s.botanicalName}</em>{s.flushHabit ? ` · ${s.flushHabit} flush` : ''}</span>
-            <button type="button" className="btn-secondary" onClick={() => onInsert(speciesLinkMarkdown(s))} aria-label={`Insert link to ${s.botanicalName}`}>Insert</button>
+            <span>
+              <strong>{s.commonNames[0] ?? s.botanicalName}</strong> <em>{s.botanicalName}</em>
+              {s.flushHabit ? ` · ${s.flushHabit} flush` : ''}
+            </span>
+            <button type="button" className="btn-secondary" onClick={() => onInsert(speciesLinkMarkdown(s))} aria-label={`Insert link to ${s.botanicalName}`}>
+              Insert
+            </button>
           </li>
         ))}
       </ul>
@@ -131,8 +173,12 @@ export function LinkPicker({ onInsert }: { onInsert: (md: string) => void }) {
         <div id="link-picker-panel" className="mt-3 space-y-3">
           <fieldset className="flex flex-wrap gap-4">
             <legend className="sr-only">What to link</legend>
-            <label className="flex min-h-target items-center gap-2"><input type="radio" name="pick-kind" className="h-5 w-5" checked={kind === 'answers'} onChange={() => setKind('answers')} /> Shared answers</label>
-            <label className="flex min-h-target items-center gap-2"><input type="radio" name="pick-kind" className="h-5 w-5" checked={kind === 'species'} onChange={() => setKind('species')} /> Species</label>
+            <label className="flex min-h-target items-center gap-2">
+              <input type="radio" name="pick-kind" className="h-5 w-5" checked={kind === 'answers'} onChange={() => setKind('answers')} /> Shared answers
+            </label>
+            <label className="flex min-h-target items-center gap-2">
+              <input type="radio" name="pick-kind" className="h-5 w-5" checked={kind === 'species'} onChange={() => setKind('species')} /> Species
+            </label>
           </fieldset>
           {kind === 'answers' ? <AnswerSearch onInsert={onInsert} /> : <SpeciesSearch onInsert={onInsert} />}
         </div>

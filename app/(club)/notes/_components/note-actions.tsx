@@ -24,12 +24,28 @@ export function NoteActions({ slug, title, status, writer }: { slug: string; tit
   return (
     <div className="no-print space-y-4">
       <div className="flex flex-wrap gap-3">
-        <button type="button" className="btn-secondary" onClick={() => window.print()}>Print</button>
-        <a href={`/api/notes/${slug}?format=md`} className="btn-secondary" download={`${slug}.md`}>Download as Markdown</a>
-        {writer ? <Link href={`/notes/${slug}/edit`} className="btn-secondary">Edit</Link> : null}
-        {writer ? <button type="button" className="btn-danger" onClick={() => void remove()}>Delete</button> : null}
+        <button type="button" className="btn-secondary" onClick={() => window.print()}>
+          Print
+        </button>
+        <a href={`/api/notes/${slug}?format=md`} className="btn-secondary" download={`${slug}.md`}>
+          Download as Markdown
+        </a>
+        {writer ? (
+          <Link href={`/notes/${slug}/edit`} className="btn-secondary">
+            Edit
+          </Link>
+        ) : null}
+        {writer ? (
+          <button type="button" className="btn-danger" onClick={() => void remove()}>
+            Delete
+          </button>
+        ) : null}
       </div>
-      {error ? <p role="alert" className="field-error">{error}</p> : null}
+      {error ? (
+        <p role="alert" className="field-error">
+          {error}
+        </p>
+      ) : null}
       {writer ? <SendDigest slug={slug} published={status === 'published'} /> : null}
     </div>
   );

@@ -47,7 +47,12 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
   const online = useOnline();
   const bodyRef = useRef<HTMLTextAreaElement | null>(null);
   const {
-    register, handleSubmit, watch, setValue, setError, formState: { errors, isSubmitting },
+    register,
+    handleSubmit,
+    watch,
+    setValue,
+    setError,
+    formState: { errors, isSubmitting },
   } = useForm<NoteInput>({
     resolver: zodResolver(noteInputSchema),
     defaultValues: note
@@ -94,17 +99,50 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
   const published = note?.status === 'published';
 
   return (
-    <form onSubmit={(e) => { e.preventDefault(); void save(published ? 'published' : 'draft'); }} className="space-y-5" noValidate data-testid="note-editor">
+    <form
+      onSubmit={(e) => {
+        e.preventDefault();
+        void save(published ? 'published' : 'draft');
+      }}
+      className="space-y-5"
+      noValidate
+      data-testid="note-editor"
+    >
       <div className="grid gap-4 sm:grid-cols-[1fr_14rem]">
         <div>
-          <label htmlFor="title" className="field-label">Title</label>
-          <input id="title" className="field-input" {...register('title')} aria-invalid={!!errors.title} aria-describedby={errors.title ? 'title-error' : undefined} />
-          {errors.title ? <p id="title-error" className="field-error">{errors.title.message}</p> : null}
+          <label htmlFor="title" className="field-label">
+            Title
+          </label>
+          <input
+            id="title"
+            className="field-input"
+            {...register('title')}
+            aria-invalid={!!errors.title}
+            aria-describedby={errors.title ? 'title-error' : undefined}
+          />
+          {errors.title ? (
+            <p id="title-error" className="field-error">
+              {errors.title.message}
+            </p>
+          ) : null}
         </div>
         <div>
-          <label htmlFor="meetingDate" className="field-label">Meeting date</label>
-          <input id="meetingDate" type="date" className="field-input" {...register('meetingDate')} aria-invalid={!!errors.meetingDate} aria-describedby={errors.meetingDate ? 'meetingDate-error' : undefined} />
-          {errors.meetingDate ? <p id="meetingDate-error" className="field-error">{errors.meetingDate.message}</p> : null}
+          <label htmlFor="meetingDate" className="field-label">
+            Meeting date
+          </label>
+          <input
+            id="meetingDate"
+            type="date"
+            className="field-input"
+            {...register('meetingDate')}
+            aria-invalid={!!errors.meetingDate}
+            aria-describedby={errors.meetingDate ? 'meetingDate-error' : undefined}
+          />
+          {errors.meetingDate ? (
+            <p id="meetingDate-error" className="field-error">
+              {errors.meetingDate.message}
+            </p>
+          ) : null}
         </div>
       </div>
 
@@ -112,7 +150,9 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
 
       <div className="grid gap-4 lg:grid-cols-2">
         <div>
-          <label htmlFor="body" className="field-label">Note (Markdown)</label>
+          <label htmlFor="body" className="field-label">
+            Note (Markdown)
+          </label>
           <textarea
             id="body"
             rows={22}
@@ -128,7 +168,11 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
           <p id="body-hint" className="mt-1 text-sm text-stone-700">
             Links to <code>/answers/…</code> and <code>/species/…</code> become preview cards. Raw HTML is removed.
           </p>
-          {errors.body ? <p id="body-error" className="field-error">{errors.body.message}</p> : null}
+          {errors.body ? (
+            <p id="body-error" className="field-error">
+              {errors.body.message}
+            </p>
+          ) : null}
         </div>
         <section aria-labelledby="preview-heading" className="min-w-0">
           <h2 id="preview-heading" className="field-label font-sans text-sm">
@@ -147,17 +191,31 @@ export function NoteEditor({ note }: { note?: NoteDto }) {
       <div className="flex flex-wrap items-center gap-3">
         {published ? (
           <>
-            <button type="button" className="btn-primary" disabled={isSubmitting || !online} onClick={() => void save('published')}>Save and keep published</button>
-            <button type="button" className="btn-secondary" disabled={isSubmitting || !online} onClick={() => void save('draft')}>Unpublish (back to draft)</button>
+            <button type="button" className="btn-primary" disabled={isSubmitting || !online} onClick={() => void save('published')}>
+              Save and keep published
+            </button>
+            <button type="button" className="btn-secondary" disabled={isSubmitting || !online} onClick={() => void save('draft')}>
+              Unpublish (back to draft)
+            </button>
           </>
         ) : (
           <>
-            <button type="button" className="btn-secondary" disabled={isSubmitting || !online} onClick={() => void save('draft')}>Save draft</button>
-            <button type="button" className="btn-primary" disabled={isSubmitting || !online} onClick={() => void save('published')}>Publish</button>
+            <button type="button" className="btn-secondary" disabled={isSubmitting || !online} onClick={() => void save('draft')}>
+              Save draft
+            </button>
+            <button type="button" className="btn-primary" disabled={isSubmitting || !online} onClick={() => void save('published')}>
+              Publish
+            </button>
           </>
         )}
-        {!online && <span className="text-sm text-stone-900" data-testid="note-offline">Saving a note needs a connection; keep this page open and save when you are back online.</span>}
-        <span role="status" className="text-sm text-clay-700">{message}</span>
+        {!online && (
+          <span className="text-sm text-stone-900" data-testid="note-offline">
+            Saving a note needs a connection; keep this page open and save when you are back online.
+          </span>
+        )}
+        <span role="status" className="text-sm text-clay-700">
+          {message}
+        </span>
       </div>
     </form>
   );

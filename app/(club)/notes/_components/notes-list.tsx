@@ -2,9 +2,7 @@
 import { useMemo, useState } from 'react';
 import Link from 'next/link';
 import useSWR from 'swr';
-import {
-  createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { SortableTable } from '@/components/sortable-table';
 import type { NoteSummaryDto } from '@/lib/data/notes';
 import { fetcher } from '@/components/fetcher';
@@ -35,7 +33,11 @@ export function NotesList({ initial }: { initial: NoteSummaryDto[] }) {
       col.accessor('meetingDate', { header: 'Meeting', cell: (c) => <time dateTime={c.getValue()}>{formatMeetingDate(c.getValue())}</time> }),
       col.accessor('title', {
         header: 'Title',
-        cell: (c) => <Link href={`/notes/${c.row.original.slug}`} className="inline-flex min-h-target items-center font-medium">{c.getValue()}</Link>,
+        cell: (c) => (
+          <Link href={`/notes/${c.row.original.slug}`} className="inline-flex min-h-target items-center font-medium">
+            {c.getValue()}
+          </Link>
+        ),
       }),
       col.accessor('authorName', { header: 'Author' }),
       col.accessor('status', { header: 'Status', cell: (c) => <StatusBadge status={c.getValue()} /> }),
@@ -54,27 +56,46 @@ export function NotesList({ initial }: { initial: NoteSummaryDto[] }) {
   return (
     <div className="space-y-4">
       <div className="max-w-md">
-        <label htmlFor="note-search" className="field-label">Search the notes</label>
-        <input id="note-search" type="search" className="field-input" placeholder="Title, words in the note, or author" value={q} onChange={(e) => setQ(e.target.value)} />
+        <label htmlFor="note-search" className="field-label">
+          Search the notes
+        </label>
+        <input
+          id="note-search"
+          type="search"
+          className="field-input"
+          placeholder="Title, words in the note, or author"
+          value={q}
+          onChange={(e) => setQ(e.target.value)}
+        />
       </div>
-      <p role="status" className="sr-only">{isLoading ? 'Searching…' : `${items.length} notes`}</p>
+      <p role="status" className="sr-only">
+        {isLoading ? 'Searching…' : `${items.length} notes`}
+      </p>
       {items.length === 0 ? (
-        <p className="card text-stone-700" data-testid="notes-empty">{q.trim() ? 'No note matches that search.' : 'No meeting notes yet.'}</p>
+        <p className="card text-stone-700" data-testid="notes-empty">
+          {q.trim() ? 'No note matches that search.' : 'No meeting notes yet.'}
+        </p>
       ) : (
         <>
-        {/* Phones: one card per note, newest meeting first. */}
-        <ul className="space-y-3 sm:hidden" data-testid="note-cards">
-          {table.getRowModel().rows.map(({ original: n }) => (
-            <li key={n.slug} className="card py-3">
-              <p className="text-sm text-stone-700"><time dateTime={n.meetingDate}>{formatMeetingDate(n.meetingDate)}</time> · {n.authorName}</p>
-              <Link href={`/notes/${n.slug}`} className="inline-flex min-h-target items-center text-lg font-medium">{n.title}</Link>
-              <div><StatusBadge status={n.status} /></div>
-            </li>
-          ))}
-        </ul>
-        <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
-          <SortableTable table={table} caption="Meeting notes. Select a column heading to sort." testId="notes-table" rowTestId="note-row" />
-        </div>
+          {/* Phones: one card per note, newest meeting first. */}
+          <ul className="space-y-3 sm:hidden" data-testid="note-cards">
+            {table.getRowModel().rows.map(({ original: n }) => (
+              <li key={n.slug} className="card py-3">
+                <p className="text-sm text-stone-700">
+                  <time dateTime={n.meetingDate}>{formatMeetingDate(n.meetingDate)}</time> · {n.authorName}
+                </p>
+                <Link href={`/notes/${n.slug}`} className="inline-flex min-h-target items-center text-lg font-medium">
+                  {n.title}
+                </Link>
+                <div>
+                  <StatusBadge status={n.status} />
+                </div>
+              </li>
+            ))}
+          </ul>
+          <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
+            <SortableTable table={table} caption="Meeting notes. Select a column heading to sort." testId="notes-table" rowTestId="note-row" />
+          </div>
         </>
       )}
     </div>

@@ -68,60 +68,129 @@ export function SendDigest({ slug, published }: { slug: string; published: boole
 
   return (
     <section aria-labelledby="digest-heading" className="card space-y-3" data-testid="send-digest">
-      <h2 id="digest-heading" className="text-xl">E-mail to members</h2>
+      <h2 id="digest-heading" className="text-xl">
+        E-mail to members
+      </h2>
       {!published ? (
         <p className="text-stone-700">Publish the note first; then you can e-mail it to the members who asked for meeting notes.</p>
       ) : (
         <>
           <p className="text-stone-700">
-            {data ? `${data.optedIn} member${data.optedIn === 1 ? '' : 's'} asked for meeting notes by e-mail.` : 'Counting members who asked for meeting notes…'}
-            {' '}Each message has its own link to stop them.
+            {data
+              ? `${data.optedIn} member${data.optedIn === 1 ? '' : 's'} asked for meeting notes by e-mail.`
+              : 'Counting members who asked for meeting notes…'}{' '}
+            Each message has its own link to stop them.
           </p>
           {confirming ? (
             <div role="alertdialog" aria-labelledby="resend-q" className="space-y-3 rounded-lg border border-sun-500 bg-sun-100 p-3">
               <p id="resend-q">
-                This note already went out on {when(confirming.sentAt)} to {confirming.recipients} member{confirming.recipients === 1 ? '' : 's'} ({confirming.senderName}). Send it again?
+                This note already went out on {when(confirming.sentAt)} to {confirming.recipients} member{confirming.recipients === 1 ? '' : 's'} (
+                {confirming.senderName}). Send it again?
               </p>
               <div className="flex flex-wrap gap-3">
-                <button ref={confirmRef} type="button" className="btn-primary" disabled={busy} onClick={() => void send(true)}>Yes, send again</button>
-                <button type="button" className="btn-secondary" disabled={busy} onClick={() => { setConfirming(null); setPreview(null); setFocusNext('start'); }}>Cancel</button>
+                <button ref={confirmRef} type="button" className="btn-primary" disabled={busy} onClick={() => void send(true)}>
+                  Yes, send again
+                </button>
+                <button
+                  type="button"
+                  className="btn-secondary"
+                  disabled={busy}
+                  onClick={() => {
+                    setConfirming(null);
+                    setPreview(null);
+                    setFocusNext('start');
+                  }}
+                >
+                  Cancel
+                </button>
               </div>
             </div>
           ) : preview ? (
             <div className="space-y-3 rounded-lg border border-stone-300 bg-stone-50 p-3" data-testid="digest-preview">
-              <h3 ref={previewRef} tabIndex={-1} className="text-lg">Check the e-mail before it goes out</h3>
+              <h3 ref={previewRef} tabIndex={-1} className="text-lg">
+                Check the e-mail before it goes out
+              </h3>
               <p data-testid="digest-recipients">
-                It goes to <strong>{preview.recipients} member{preview.recipients === 1 ? '' : 's'}</strong>, one message each with their own link to stop them.
+                It goes to{' '}
+                <strong>
+                  {preview.recipients} member{preview.recipients === 1 ? '' : 's'}
+                </strong>
+                , one message each with their own link to stop them.
               </p>
-              <p className="break-words text-sm"><span className="font-medium">Subject:</span> {preview.subject}</p>
+              <p className="break-words text-sm">
+                <span className="font-medium">Subject:</span> {preview.subject}
+              </p>
               <div role="group" aria-label="Which part to show" className="flex flex-wrap gap-2">
-                <button type="button" className={view === 'html' ? 'btn-primary' : 'btn-secondary'} aria-pressed={view === 'html'} onClick={() => setView('html')}>As formatted (HTML)</button>
-                <button type="button" className={view === 'text' ? 'btn-primary' : 'btn-secondary'} aria-pressed={view === 'text'} onClick={() => setView('text')}>As plain text</button>
+                <button
+                  type="button"
+                  className={view === 'html' ? 'btn-primary' : 'btn-secondary'}
+                  aria-pressed={view === 'html'}
+                  onClick={() => setView('html')}
+                >
+                  As formatted (HTML)
+                </button>
+                <button
+                  type="button"
+                  className={view === 'text' ? 'btn-primary' : 'btn-secondary'}
+                  aria-pressed={view === 'text'}
+                  onClick={() => setView('text')}
+                >
+                  As plain text
+                </button>
               </div>
               {view === 'html' ? (
                 // Sandboxed: no scripts, no same-origin access; the mail's own links open outside.
-                <iframe title="The e-mail as formatted (HTML part)" sandbox="allow-popups allow-popups-to-escape-sandbox" srcDoc={preview.html} className="h-[28rem] w-full rounded border border-stone-300 bg-white" data-testid="digest-preview-html" />
+                <iframe
+                  title="The e-mail as formatted (HTML part)"
+                  sandbox="allow-popups allow-popups-to-escape-sandbox"
+                  srcDoc={preview.html}
+                  className="h-[28rem] w-full rounded border border-stone-300 bg-white"
+                  data-testid="digest-preview-html"
+                />
               ) : (
-                <pre className="max-h-[28rem] overflow-auto whitespace-pre-wrap break-words rounded border border-stone-300 bg-white p-3 font-sans text-sm" data-testid="digest-preview-text">{preview.text}</pre>
+                <pre
+                  className="max-h-[28rem] overflow-auto whitespace-pre-wrap break-words rounded border border-stone-300 bg-white p-3 font-sans text-sm"
+                  data-testid="digest-preview-text"
+                >
+                  {preview.text}
+                </pre>
               )}
               <div className="flex flex-wrap gap-3">
                 <button type="button" className="btn-primary" disabled={busy} onClick={() => void send(false)}>
                   {busy ? 'Sending…' : `Send to ${preview.recipients} member${preview.recipients === 1 ? '' : 's'}`}
                 </button>
-                <button type="button" className="btn-secondary" disabled={busy} onClick={() => { setPreview(null); setFocusNext('start'); }}>Not now</button>
+                <button
+                  type="button"
+                  className="btn-secondary"
+                  disabled={busy}
+                  onClick={() => {
+                    setPreview(null);
+                    setFocusNext('start');
+                  }}
+                >
+                  Not now
+                </button>
               </div>
             </div>
           ) : (
-            <button ref={startRef} type="button" className="btn-primary" disabled={busy} onClick={() => void openPreview()}>{busy ? 'Preparing the preview…' : 'Send to members'}</button>
+            <button ref={startRef} type="button" className="btn-primary" disabled={busy} onClick={() => void openPreview()}>
+              {busy ? 'Preparing the preview…' : 'Send to members'}
+            </button>
           )}
         </>
       )}
-      <p ref={statusRef} tabIndex={-1} role="status" className="text-moss-800">{message}</p>
+      <p ref={statusRef} tabIndex={-1} role="status" className="text-moss-800">
+        {message}
+      </p>
       {data && data.sends.length > 0 ? (
         <div>
           <h3 className="text-base font-semibold">Sent before</h3>
           <ul className="list-disc pl-5 text-sm" data-testid="digest-sends">
-            {data.sends.map((s) => <li key={s.sentAt}>{when(s.sentAt)}: {s.recipients} member{s.recipients === 1 ? '' : 's'}, by {s.senderName}</li>)}
+            {data.sends.map((s) => (
+              <li key={s.sentAt}>
+                {when(s.sentAt)}: {s.recipients} member{s.recipients === 1 ? '' : 's'}, by {s.senderName}
+              </li>
+            ))}
           </ul>
         </div>
       ) : null}

@@ -9,7 +9,9 @@ export default async function NewNotePage() {
   await requirePageRole('librarian', '/notes/new');
   return (
     <div className="space-y-6">
-      <p className="no-print"><Link href="/notes">← Meeting notes</Link></p>
+      <p className="no-print">
+        <Link href="/notes">← Meeting notes</Link>
+      </p>
       <h1 className="page-title">Write a meeting note</h1>
       <NoteEditor />
     </div>

@@ -9,7 +9,11 @@ type Values = { name?: string; digestOptIn?: boolean; reminderOptIn?: boolean };
 
 export function ProfileForm({ initial }: { initial: Values }) {
   const [status, setStatus] = useState('');
-  const { register, handleSubmit, formState: { errors, isSubmitting } } = useForm<Values>({
+  const {
+    register,
+    handleSubmit,
+    formState: { errors, isSubmitting },
+  } = useForm<Values>({
     resolver: zodResolver(profilePatchSchema),
     defaultValues: initial,
   });
@@ -24,7 +28,9 @@ export function ProfileForm({ initial }: { initial: Values }) {
   return (
     <form onSubmit={onSubmit} className="card space-y-4" data-testid="profile-form">
       <div>
-        <label htmlFor="name" className="field-label">Display name</label>
+        <label htmlFor="name" className="field-label">
+          Display name
+        </label>
         <input id="name" className="field-input" {...register('name')} />
         {errors.name ? <p className="field-error">{errors.name.message}</p> : null}
       </div>
@@ -37,7 +43,9 @@ export function ProfileForm({ initial }: { initial: Values }) {
         <span>Send me a weekly e-mail of the tasks due on my trees</span>
       </label>
       <div className="flex items-center gap-3">
-        <button type="submit" className="btn-primary" disabled={isSubmitting}>Save</button>
+        <button type="submit" className="btn-primary" disabled={isSubmitting}>
+          Save
+        </button>
         <span role="status">{status}</span>
       </div>
     </form>

@@ -5,7 +5,13 @@ import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, X
 const COLOURS = ['#2f5d3a', '#8a6d3b', '#4b6f8f', '#7a4f7a', '#6b6b6b'];
 
 /** This season's heat sum against earlier years, by day of the season year. */
-export function HeatSumChart({ years, hemisphere }: { years: { year: number; total: number; points: { day: number; gdd: number }[] }[]; hemisphere: 'north' | 'south' }) {
+export function HeatSumChart({
+  years,
+  hemisphere,
+}: {
+  years: { year: number; total: number; points: { day: number; gdd: number }[] }[];
+  hemisphere: 'north' | 'south';
+}) {
   const shown = years.slice(-5);
   const byDay = new Map<number, Record<string, number>>();
   for (const y of shown) for (const p of y.points) (byDay.get(p.day) ?? byDay.set(p.day, { day: p.day }).get(p.day)!)[String(y.year)] = p.gdd;
@@ -22,8 +28,16 @@ export function HeatSumChart({ years, hemisphere }: { years: { year: number; tot
             <Tooltip />
             <Legend />
             {shown.map((y, i) => (
-              <Line key={y.year} dataKey={String(y.year)} name={String(y.year)} dot={false} connectNulls isAnimationActive={false}
-                stroke={COLOURS[(shown.length - 1 - i) % COLOURS.length]} strokeWidth={i === shown.length - 1 ? 3 : 1.5} />
+              <Line
+                key={y.year}
+                dataKey={String(y.year)}
+                name={String(y.year)}
+                dot={false}
+                connectNulls
+                isAnimationActive={false}
+                stroke={COLOURS[(shown.length - 1 - i) % COLOURS.length]}
+                strokeWidth={i === shown.length - 1 ? 3 : 1.5}
+              />
             ))}
           </LineChart>
         </ResponsiveContainer>

@@ -34,11 +34,17 @@ export default async function SpeciesPage({ searchParams }: { searchParams: Prom
         <div className="flex flex-wrap gap-2">
           {editor && (
             <>
-              <Link href="/species/new" className="btn-primary">Add a species</Link>
-              <Link href="/species/import" className="btn-secondary">Import .md files</Link>
+              <Link href="/species/new" className="btn-primary">
+                Add a species
+              </Link>
+              <Link href="/species/import" className="btn-secondary">
+                Import .md files
+              </Link>
             </>
           )}
-          <a href="/api/species/export" className="btn-secondary" download>Download all (.zip)</a>
+          <a href="/api/species/export" className="btn-secondary" download>
+            Download all (.zip)
+          </a>
         </div>
       </div>
       <SpeciesTable items={items} initial={initial} showDrafts={editor} />

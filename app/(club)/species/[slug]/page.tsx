@@ -94,8 +94,14 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
           </p>
         )}
         <div className="flex flex-wrap gap-2 pt-2">
-          {editor && <Link href={`/species/${s.slug}/edit`} className="btn-primary" data-testid="edit-species">Edit</Link>}
-          <Link href={`/species/${s.slug}/history`} className="btn-secondary">Revision history</Link>
+          {editor && (
+            <Link href={`/species/${s.slug}/edit`} className="btn-primary" data-testid="edit-species">
+              Edit
+            </Link>
+          )}
+          <Link href={`/species/${s.slug}/history`} className="btn-secondary">
+            Revision history
+          </Link>
           <a href={`/api/species/${s.slug}/export${isPublishedView ? '' : `?revision=${s.revision}`}`} className="btn-secondary" download>
             Download .md
           </a>
@@ -103,7 +109,9 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
       </header>
 
       <section aria-labelledby="traits-h" className="card">
-        <h2 id="traits-h" className="text-xl">Traits</h2>
+        <h2 id="traits-h" className="text-xl">
+          Traits
+        </h2>
         <p className="mt-1 text-sm text-stone-700">
           Each value carries its source: <strong>P</strong> {provenanceLabels.published.long.toLowerCase()}, <strong>C</strong> common practice,{' '}
           <strong>M</strong> from memory. Hover or focus a marker for the detail.
@@ -122,15 +130,21 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
       </section>
 
       <section aria-labelledby="wizard-h" className="card bg-moss-50">
-        <h2 id="wizard-h" className="text-xl">What the wizard does for this species</h2>
+        <h2 id="wizard-h" className="text-xl">
+          What the wizard does for this species
+        </h2>
         <ul className="mt-3 list-disc space-y-2 pl-5" data-testid="wizard-summary">
-          {wizardSummary(rec).map((line) => <li key={line}>{line}</li>)}
+          {wizardSummary(rec).map((line) => (
+            <li key={line}>{line}</li>
+          ))}
         </ul>
       </section>
 
       {rec.cautions.length > 0 && (
         <section aria-labelledby="cautions-h" className="rounded-card border border-clay-500 bg-clay-100 p-4 sm:p-6">
-          <h2 id="cautions-h" className="text-xl text-clay-700">Cautions</h2>
+          <h2 id="cautions-h" className="text-xl text-clay-700">
+            Cautions
+          </h2>
           <ul className="mt-3 space-y-3">
             {rec.cautions.map((c, i) => (
               <li key={i} className="flex flex-wrap items-start gap-2">
@@ -144,9 +158,14 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
       )}
 
       <section aria-labelledby="notes-h">
-        <h2 id="notes-h" className="text-xl">Care notes</h2>
+        <h2 id="notes-h" className="text-xl">
+          Care notes
+        </h2>
         {s.body.trim() ? (
-          <div className="prose prose-stone mt-3 max-w-none prose-headings:font-display prose-h2:mt-4 prose-h2:text-lg prose-h3:text-base" dangerouslySetInnerHTML={{ __html: html }} />
+          <div
+            className="prose prose-stone mt-3 max-w-none prose-headings:font-display prose-h2:mt-4 prose-h2:text-lg prose-h3:text-base"
+            dangerouslySetInnerHTML={{ __html: html }}
+          />
         ) : (
           <p className="mt-3 text-stone-700">No care notes yet.</p>
         )}
@@ -155,10 +174,14 @@ export default async function SpeciesDetailPage({ params, searchParams }: Props)
       <Backlinks type="species" id={s.slug} />
 
       <section aria-labelledby="sources-h" className="card">
-        <h2 id="sources-h" className="text-xl">Sources</h2>
+        <h2 id="sources-h" className="text-xl">
+          Sources
+        </h2>
         {citations.length ? (
           <ol className="mt-3 list-decimal space-y-1 pl-6" data-testid="sources">
-            {citations.map((c) => <li key={c}>{c}</li>)}
+            {citations.map((c) => (
+              <li key={c}>{c}</li>
+            ))}
           </ol>
         ) : (
           <p className="mt-3 text-stone-700">No published sources yet: every value here is common practice or from memory.</p>

@@ -95,8 +95,12 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
                 {notes.get(c.row.original.slug)}
               </span>
             )}
-            {showDrafts && c.row.original.publishedRevision === null && <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Not published</span>}
-            {showDrafts && c.row.original.publishedRevision !== null && c.row.original.hasDraft && <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Draft waiting</span>}
+            {showDrafts && c.row.original.publishedRevision === null && (
+              <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Not published</span>
+            )}
+            {showDrafts && c.row.original.publishedRevision !== null && c.row.original.hasDraft && (
+              <span className="w-fit rounded bg-sun-100 px-1.5 text-xs text-sun-700">Draft waiting</span>
+            )}
           </span>
         ),
       }),
@@ -137,42 +141,100 @@ export function SpeciesTable({ items: initialItems, initial, showDrafts }: { ite
     <div className="space-y-4">
       <form role="search" className="card grid gap-4 sm:grid-cols-2 lg:grid-cols-6" onSubmit={(e) => e.preventDefault()}>
         <div className="sm:col-span-2 lg:col-span-6">
-          <label htmlFor="species-q" className="field-label">Search</label>
-          <input id="species-q" type="search" className="field-input" placeholder="e.g. Scots pine, mugho, sylvestris" value={f.q} onChange={set('q')} autoComplete="off" data-testid="species-search" />
+          <label htmlFor="species-q" className="field-label">
+            Search
+          </label>
+          <input
+            id="species-q"
+            type="search"
+            className="field-input"
+            placeholder="e.g. Scots pine, mugho, sylvestris"
+            value={f.q}
+            onChange={set('q')}
+            autoComplete="off"
+            data-testid="species-search"
+          />
         </div>
         <div className="lg:col-span-2">
-          <label htmlFor="species-group" className="field-label">Group</label>
+          <label htmlFor="species-group" className="field-label">
+            Group
+          </label>
           <select id="species-group" className="field-input" value={f.group} onChange={set('group')}>
             <option value="">All groups</option>
-            {speciesGroups.map((g) => <option key={g} value={g}>{groupLabels[g]}</option>)}
+            {speciesGroups.map((g) => (
+              <option key={g} value={g}>
+                {groupLabels[g]}
+              </option>
+            ))}
           </select>
         </div>
         <div className="lg:col-span-2">
-          <label htmlFor="species-flush" className="field-label">Flush habit</label>
+          <label htmlFor="species-flush" className="field-label">
+            Flush habit
+          </label>
           <select id="species-flush" className="field-input" value={f.flush} onChange={set('flush')}>
             <option value="">Any</option>
-            {flushHabits.map((v) => <option key={v} value={v}>{valueLabels[v]}</option>)}
+            {flushHabits.map((v) => (
+              <option key={v} value={v}>
+                {valueLabels[v]}
+              </option>
+            ))}
           </select>
         </div>
         <div className="lg:col-span-2">
-          <label htmlFor="species-vigour" className="field-label">Vigour</label>
+          <label htmlFor="species-vigour" className="field-label">
+            Vigour
+          </label>
           <select id="species-vigour" className="field-input" value={f.vigour} onChange={set('vigour')}>
             <option value="">Any</option>
-            {levels.map((v) => <option key={v} value={v}>{valueLabels[v]}</option>)}
+            {levels.map((v) => (
+              <option key={v} value={v}>
+                {valueLabels[v]}
+              </option>
+            ))}
           </select>
         </div>
         <fieldset className="sm:col-span-2 lg:col-span-4">
           <legend className="field-label">Needle length overlaps (mm)</legend>
           <div className="flex items-center gap-2">
-            <label htmlFor="species-nmin" className="sr-only">Shortest needle length in mm</label>
-            <input id="species-nmin" type="number" inputMode="numeric" min={1} max={500} className="field-input" placeholder="from" value={f.needleMin} onChange={set('needleMin')} />
+            <label htmlFor="species-nmin" className="sr-only">
+              Shortest needle length in mm
+            </label>
+            <input
+              id="species-nmin"
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={500}
+              className="field-input"
+              placeholder="from"
+              value={f.needleMin}
+              onChange={set('needleMin')}
+            />
             <span aria-hidden>–</span>
-            <label htmlFor="species-nmax" className="sr-only">Longest needle length in mm</label>
-            <input id="species-nmax" type="number" inputMode="numeric" min={1} max={500} className="field-input" placeholder="to" value={f.needleMax} onChange={set('needleMax')} />
+            <label htmlFor="species-nmax" className="sr-only">
+              Longest needle length in mm
+            </label>
+            <input
+              id="species-nmax"
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={500}
+              className="field-input"
+              placeholder="to"
+              value={f.needleMax}
+              onChange={set('needleMax')}
+            />
           </div>
         </fieldset>
         <div className="flex items-end lg:col-span-2">
-          <button type="button" className="btn-secondary w-full" disabled={!filtersOn} onClick={() => setF({ q: '', group: '', flush: '', vigour: '', needleMin: '', needleMax: '' })}>
+          <button
+            type="button"
+            className="btn-secondary w-full"
+            disabled={!filtersOn}
+            onClick={() => setF({ q: '', group: '', flush: '', vigour: '', needleMin: '', needleMax: '' })}
+          >
             Clear all
           </button>
         </div>

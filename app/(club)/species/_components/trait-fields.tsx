@@ -24,10 +24,24 @@ const hints: Partial<Record<Key, string>> = {
 };
 
 function Err({ id, msg }: { id: string; msg?: string }) {
-  return msg ? <p id={id} className="field-error" role="alert">{msg}</p> : null;
+  return msg ? (
+    <p id={id} className="field-error" role="alert">
+      {msg}
+    </p>
+  ) : null;
 }
 
-export function TraitFields({ name, control, register, errors }: { name: Key; control: Control<FormIn>; register: UseFormRegister<FormIn>; errors: FieldErrors<FormIn> }) {
+export function TraitFields({
+  name,
+  control,
+  register,
+  errors,
+}: {
+  name: Key;
+  control: Control<FormIn>;
+  register: UseFormRegister<FormIn>;
+  errors: FieldErrors<FormIn>;
+}) {
   const base = `record.traits.${name}` as const;
   const id = `trait-${name}`;
   const e = (p: string) => errorAt(errors, `${base}.${p}`);
@@ -38,22 +52,52 @@ export function TraitFields({ name, control, register, errors }: { name: Key; co
   if (options) {
     valueInput = (
       <select id={`${id}-value`} className="field-input" aria-invalid={!!valueErr} {...register(`${base}.value` as 'record.traits.vigour.value')}>
-        {options.map((o) => <option key={o} value={o}>{valueLabels[o] ?? o}</option>)}
+        {options.map((o) => (
+          <option key={o} value={o}>
+            {valueLabels[o] ?? o}
+          </option>
+        ))}
       </select>
     );
   } else if (name === 'needlesPerFascicle') {
     valueInput = (
-      <input id={`${id}-value`} type="number" inputMode="numeric" min={1} max={8} className="field-input" aria-invalid={!!valueErr}
-        {...register('record.traits.needlesPerFascicle.value', { setValueAs: (v) => (v === '' || v == null ? null : Number(v)) })} />
+      <input
+        id={`${id}-value`}
+        type="number"
+        inputMode="numeric"
+        min={1}
+        max={8}
+        className="field-input"
+        aria-invalid={!!valueErr}
+        {...register('record.traits.needlesPerFascicle.value', { setValueAs: (v) => (v === '' || v == null ? null : Number(v)) })}
+      />
     );
   } else if (name === 'needleLengthMm') {
     valueInput = (
       <div className="flex items-center gap-2">
-        <label className="sr-only" htmlFor={`${id}-value`}>Shortest (mm)</label>
-        <input id={`${id}-value`} type="number" step="any" className="field-input" aria-invalid={!!valueErr} {...register('record.traits.needleLengthMm.value.min', { valueAsNumber: true })} />
+        <label className="sr-only" htmlFor={`${id}-value`}>
+          Shortest (mm)
+        </label>
+        <input
+          id={`${id}-value`}
+          type="number"
+          step="any"
+          className="field-input"
+          aria-invalid={!!valueErr}
+          {...register('record.traits.needleLengthMm.value.min', { valueAsNumber: true })}
+        />
         <span aria-hidden>–</span>
-        <label className="sr-only" htmlFor={`${id}-max`}>Longest (mm)</label>
-        <input id={`${id}-max`} type="number" step="any" className="field-input" aria-invalid={!!valueErr} {...register('record.traits.needleLengthMm.value.max', { valueAsNumber: true })} />
+        <label className="sr-only" htmlFor={`${id}-max`}>
+          Longest (mm)
+        </label>
+        <input
+          id={`${id}-max`}
+          type="number"
+          step="any"
+          className="field-input"
+          aria-invalid={!!valueErr}
+          {...register('record.traits.needleLengthMm.value.max', { valueAsNumber: true })}
+        />
         <span className="text-sm text-stone-700">mm</span>
       </div>
     );
@@ -73,11 +117,33 @@ export function TraitFields({ name, control, register, errors }: { name: Key; co
           const show = (x?: number) => (x === undefined || Number.isNaN(x) ? '' : String(x));
           return (
             <div className="flex items-center gap-2">
-              <label className="sr-only" htmlFor={`${id}-value`}>Coldest zone</label>
-              <input id={`${id}-value`} type="number" min={1} max={13} className="field-input" value={show(v?.min)} onChange={(ev) => change('min', ev.target.value)} onBlur={field.onBlur} />
+              <label className="sr-only" htmlFor={`${id}-value`}>
+                Coldest zone
+              </label>
+              <input
+                id={`${id}-value`}
+                type="number"
+                min={1}
+                max={13}
+                className="field-input"
+                value={show(v?.min)}
+                onChange={(ev) => change('min', ev.target.value)}
+                onBlur={field.onBlur}
+              />
               <span aria-hidden>–</span>
-              <label className="sr-only" htmlFor={`${id}-max`}>Warmest zone</label>
-              <input id={`${id}-max`} type="number" min={1} max={13} className="field-input" value={show(v?.max)} onChange={(ev) => change('max', ev.target.value)} onBlur={field.onBlur} />
+              <label className="sr-only" htmlFor={`${id}-max`}>
+                Warmest zone
+              </label>
+              <input
+                id={`${id}-max`}
+                type="number"
+                min={1}
+                max={13}
+                className="field-input"
+                value={show(v?.max)}
+                onChange={(ev) => change('max', ev.target.value)}
+                onBlur={field.onBlur}
+              />
             </div>
           );
         }}
@@ -93,24 +159,36 @@ export function TraitFields({ name, control, register, errors }: { name: Key; co
       {hints[name] && <p className="mb-2 text-sm text-stone-700">{hints[name]}</p>}
       <div className="grid gap-3 sm:grid-cols-2">
         <div>
-          <label htmlFor={`${id}-value`} className="field-label">Value</label>
+          <label htmlFor={`${id}-value`} className="field-label">
+            Value
+          </label>
           {valueInput}
           <Err id={`${id}-value-err`} msg={valueErr} />
         </div>
         <div>
-          <label htmlFor={`${id}-prov`} className="field-label">Source</label>
+          <label htmlFor={`${id}-prov`} className="field-label">
+            Source
+          </label>
           <select id={`${id}-prov`} className="field-input" {...register(`${base}.provenance` as 'record.traits.vigour.provenance')}>
-            {provenanceKinds.map((p) => <option key={p} value={p}>{provenanceLabels[p].option}</option>)}
+            {provenanceKinds.map((p) => (
+              <option key={p} value={p}>
+                {provenanceLabels[p].option}
+              </option>
+            ))}
           </select>
           <Err id={`${id}-prov-err`} msg={e('provenance')} />
         </div>
         <div>
-          <label htmlFor={`${id}-cit`} className="field-label">Citation (needed to publish; a draft can wait)</label>
+          <label htmlFor={`${id}-cit`} className="field-label">
+            Citation (needed to publish; a draft can wait)
+          </label>
           <input id={`${id}-cit`} className="field-input" aria-invalid={!!e('citation')} {...register(`${base}.citation` as 'record.traits.vigour.citation')} />
           <Err id={`${id}-cit-err`} msg={e('citation')} />
         </div>
         <div>
-          <label htmlFor={`${id}-note`} className="field-label">Note (optional)</label>
+          <label htmlFor={`${id}-note`} className="field-label">
+            Note (optional)
+          </label>
           <input id={`${id}-note`} className="field-input" {...register(`${base}.note` as 'record.traits.vigour.note')} />
           <Err id={`${id}-note-err`} msg={e('note')} />
         </div>
@@ -118,4 +196,3 @@ export function TraitFields({ name, control, register, errors }: { name: Key; co
     </fieldset>
   );
 }
-

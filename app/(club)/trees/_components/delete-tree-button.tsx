@@ -26,8 +26,20 @@ export function DeleteTreeButton({ id, name }: { id: string; name: string }) {
   }
   return (
     <>
-      <button type="button" className="btn-danger" onClick={onClick} disabled={busy || !online} title={online ? undefined : 'Deleting a tree needs a connection'}>Delete</button>
-      {error ? <p role="alert" className="field-error w-full">{error}</p> : null}
+      <button
+        type="button"
+        className="btn-danger"
+        onClick={onClick}
+        disabled={busy || !online}
+        title={online ? undefined : 'Deleting a tree needs a connection'}
+      >
+        Delete
+      </button>
+      {error ? (
+        <p role="alert" className="field-error w-full">
+          {error}
+        </p>
+      ) : null}
     </>
   );
 }

@@ -2,9 +2,7 @@
 import { useMemo, useState } from 'react';
 import Link from 'next/link';
 import useSWR from 'swr';
-import {
-  createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { SortableTable } from '@/components/sortable-table';
 import type { TreeDto } from '@/lib/data/trees';
 import { fetcher } from '@/components/fetcher';
@@ -73,37 +71,53 @@ export function TreesTable({ initial, due }: { initial: TreeDto[]; due: Record<s
 
   return (
     <>
-    {/* Phones get one card per tree and a sort select; wider screens get the sortable table. */}
-    <div className="space-y-3 sm:hidden">
-      <div>
-        <label htmlFor="tree-sort" className="field-label">Sort by</label>
-        <select
-          id="tree-sort"
-          className="field-input"
-          value={sortOptions.some((o) => o.value === current) ? current : ''}
-          onChange={(e) => {
-            const [id, dir] = e.target.value.split(':');
-            setSorting([{ id, desc: dir === 'desc' }]);
-          }}
-        >
-          {sortOptions.some((o) => o.value === current) ? null : <option value="">Column order</option>}
-          {sortOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
-        </select>
+      {/* Phones get one card per tree and a sort select; wider screens get the sortable table. */}
+      <div className="space-y-3 sm:hidden">
+        <div>
+          <label htmlFor="tree-sort" className="field-label">
+            Sort by
+          </label>
+          <select
+            id="tree-sort"
+            className="field-input"
+            value={sortOptions.some((o) => o.value === current) ? current : ''}
+            onChange={(e) => {
+              const [id, dir] = e.target.value.split(':');
+              setSorting([{ id, desc: dir === 'desc' }]);
+            }}
+          >
+            {sortOptions.some((o) => o.value === current) ? null : <option value="">Column order</option>}
+            {sortOptions.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
+          </select>
+        </div>
+        <ul className="space-y-3" data-testid="tree-cards">
+          {table.getRowModel().rows.map(({ original: t }) => (
+            <li key={t.id} className="card py-3">
+              <Link href={`/trees/${t.id}`} className="inline-flex min-h-target items-center text-lg font-medium">
+                {t.name}
+              </Link>
+              <p className="text-stone-700">{t.speciesName ?? t.speciesSlug}</p>
+              <p className="text-sm text-stone-600">
+                {describeContainer(t)} · From the wild: {describeCollected(t)}
+              </p>
+              {due[t.id] ? <p className="text-sm font-medium text-moss-800">Due now: {due[t.id]}</p> : null}
+            </li>
+          ))}
+        </ul>
       </div>
-      <ul className="space-y-3" data-testid="tree-cards">
-        {table.getRowModel().rows.map(({ original: t }) => (
-          <li key={t.id} className="card py-3">
-            <Link href={`/trees/${t.id}`} className="inline-flex min-h-target items-center text-lg font-medium">{t.name}</Link>
-            <p className="text-stone-700">{t.speciesName ?? t.speciesSlug}</p>
-            <p className="text-sm text-stone-600">{describeContainer(t)} · From the wild: {describeCollected(t)}</p>
-            {due[t.id] ? <p className="text-sm font-medium text-moss-800">Due now: {due[t.id]}</p> : null}
-          </li>
-        ))}
-      </ul>
-    </div>
-    <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
-      <SortableTable table={table} caption="Your trees. Select a column heading to sort." testId="trees-table" rowTestId="tree-row" className="min-w-[40rem]" />
-    </div>
+      <div className="hidden overflow-x-auto rounded-card border border-stone-200 bg-white sm:block">
+        <SortableTable
+          table={table}
+          caption="Your trees. Select a column heading to sort."
+          testId="trees-table"
+          rowTestId="tree-row"
+          className="min-w-[40rem]"
+        />
+      </div>
     </>
   );
 }

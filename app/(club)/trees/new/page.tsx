@@ -11,7 +11,9 @@ export default async function NewTreePage() {
   const species = await listSpeciesOptions();
   return (
     <div className="space-y-6">
-      <p><Link href="/trees">← Your trees</Link></p>
+      <p>
+        <Link href="/trees">← Your trees</Link>
+      </p>
       <h1 className="page-title">Add a tree</h1>
       <TreeForm species={species} />
     </div>

@@ -12,7 +12,9 @@ export default async function EditNotePage({ params }: { params: Promise<{ slug:
   const note = await loadNoteOr404(actor, slug);
   return (
     <div className="space-y-6">
-      <p><Link href={`/notes/${note.slug}`}>← {note.title}</Link></p>
+      <p>
+        <Link href={`/notes/${note.slug}`}>← {note.title}</Link>
+      </p>
       <h1 className="page-title">Edit: {note.title}</h1>
       <NoteEditor note={note} />
     </div>

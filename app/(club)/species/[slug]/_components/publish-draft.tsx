@@ -19,11 +19,22 @@ export function PublishDraft({ slug, revision }: { slug: string; revision: numbe
     setBusy(true);
     setError(null);
     try {
-      await sendJson(`/api/species/${slug}/revert`, 'POST', { toRevision: revision, baseRevision: revision, publish: true, summary: `Published draft revision ${revision}` });
+      await sendJson(`/api/species/${slug}/revert`, 'POST', {
+        toRevision: revision,
+        baseRevision: revision,
+        publish: true,
+        summary: `Published draft revision ${revision}`,
+      });
       router.push(`/species/${slug}?published=${revision}`);
       router.refresh();
     } catch (e) {
-      const fields = e instanceof ApiError ? Object.keys(e.body.fields ?? {}).map((k) => { const t = k.replace(/^record\.traits\./, '').replace(/\.citation$/, ''); return `the citation of ${traitLabels[t as keyof typeof traitLabels] ?? t}`; }) : [];
+      const fields =
+        e instanceof ApiError
+          ? Object.keys(e.body.fields ?? {}).map((k) => {
+              const t = k.replace(/^record\.traits\./, '').replace(/\.citation$/, '');
+              return `the citation of ${traitLabels[t as keyof typeof traitLabels] ?? t}`;
+            })
+          : [];
       setError({ text: e instanceof ApiError ? e.body.message : 'The server could not be reached; try again.', fields });
       setBusy(false);
       requestAnimationFrame(() => errorRef.current?.focus());
@@ -38,7 +49,11 @@ export function PublishDraft({ slug, revision }: { slug: string; revision: numbe
       {error && (
         <div ref={errorRef} tabIndex={-1} role="alert" className="rounded-lg border border-clay-500 bg-clay-100 p-3 text-clay-700">
           <p>{error.text}</p>
-          {error.fields.length > 0 && <p className="mt-1">Missing: {error.fields.join(', ')}. <Link href={`/species/${slug}/edit`}>Add them in the editor</Link>.</p>}
+          {error.fields.length > 0 && (
+            <p className="mt-1">
+              Missing: {error.fields.join(', ')}. <Link href={`/species/${slug}/edit`}>Add them in the editor</Link>.
+            </p>
+          )}
         </div>
       )}
     </div>

@@ -13,7 +13,21 @@ const tone: Record<ProvenanceKind, string> = {
  * display:none until then; on a phone it shows pinned across the bottom of the screen, so a
  * marker near the right edge never pushes it past the screen.
  */
-export function SourceMarker({ id, provenance, citation, note, sourceNumber, align = 'start' }: { id: string; provenance: ProvenanceKind; citation?: string; note?: string; sourceNumber?: number; align?: 'start' | 'end' }) {
+export function SourceMarker({
+  id,
+  provenance,
+  citation,
+  note,
+  sourceNumber,
+  align = 'start',
+}: {
+  id: string;
+  provenance: ProvenanceKind;
+  citation?: string;
+  note?: string;
+  sourceNumber?: number;
+  align?: 'start' | 'end';
+}) {
   const label = provenanceLabels[provenance];
   const tipId = `${id}-tip`;
   return (

@@ -24,8 +24,12 @@ export default async function EditSpeciesPage({ params }: { params: Promise<{ sl
   }
   return (
     <div className="space-y-6">
-      <p className="text-sm"><Link href={`/species/${slug}`}>Back to the species</Link></p>
-      <h1 className="page-title">Edit <span className="italic">{latest.record.botanicalName}</span></h1>
+      <p className="text-sm">
+        <Link href={`/species/${slug}`}>Back to the species</Link>
+      </p>
+      <h1 className="page-title">
+        Edit <span className="italic">{latest.record.botanicalName}</span>
+      </h1>
       <p className="text-stone-700" data-testid="base-revision">
         Starting from revision {latest.revision} ({latest.status === 'draft' ? 'a draft' : 'published'}).
       </p>

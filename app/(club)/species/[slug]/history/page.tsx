@@ -34,15 +34,18 @@ export default async function HistoryPage({ params, searchParams }: Props) {
   // The content of each revision, to say which are identical to the one before (a revert of a
   // revert, a save without changes): those are never the default side of a comparison.
   const contents = new Map(
-    await Promise.all(revisions.map(async (r) => {
-      const s = await getSpeciesForViewer(viewer, slug, r.revision);
-      return [r.revision, { record: s.record, body: s.body }] as const;
-    })),
+    await Promise.all(
+      revisions.map(async (r) => {
+        const s = await getSpeciesForViewer(viewer, slug, r.revision);
+        return [r.revision, { record: s.record, body: s.body }] as const;
+      }),
+    ),
   );
   const sameAsPrevious = new Map<number, number>();
   revisions.forEach((r, i) => {
     const prev = revisions[i + 1];
-    if (prev && sameContent(contents.get(r.revision)!, contents.get(prev.revision)!)) sameAsPrevious.set(r.revision, sameAsPrevious.get(prev.revision) ?? prev.revision);
+    if (prev && sameContent(contents.get(r.revision)!, contents.get(prev.revision)!))
+      sameAsPrevious.set(r.revision, sameAsPrevious.get(prev.revision) ?? prev.revision);
   });
   const known = new Set(revisions.map((r) => r.revision));
   const newest = revisions[0]?.revision;
@@ -59,10 +62,16 @@ export default async function HistoryPage({ params, searchParams }: Props) {
 
   return (
     <div className="space-y-6">
-      <p className="text-sm"><Link href={`/species/${slug}`}>Back to the species</Link></p>
+      <p className="text-sm">
+        <Link href={`/species/${slug}`}>Back to the species</Link>
+      </p>
       <h1 className="page-title">Revision history</h1>
       {!editor && <p className="text-stone-700">Published revisions only; drafts are kept by the editors.</p>}
-      {editor && reverted && latest && <FocusNotice>Reverted: revision {latest.revision} is a published copy of revision {reverted}.</FocusNotice>}
+      {editor && reverted && latest && (
+        <FocusNotice>
+          Reverted: revision {latest.revision} is a published copy of revision {reverted}.
+        </FocusNotice>
+      )}
 
       <ol className="space-y-3" data-testid="revisions" aria-label="Revisions, newest first">
         {revisions.map((r) => (
@@ -82,7 +91,9 @@ export default async function HistoryPage({ params, searchParams }: Props) {
             </div>
             {editor && (
               <div className="flex flex-wrap gap-2">
-                <Link className="btn-secondary" href={`/species/${slug}?revision=${r.revision}`} aria-label={`View revision ${r.revision}`}>View</Link>
+                <Link className="btn-secondary" href={`/species/${slug}?revision=${r.revision}`} aria-label={`View revision ${r.revision}`}>
+                  View
+                </Link>
                 {latest && r.revision !== latest.revision && <RevertButton slug={slug} toRevision={r.revision} baseRevision={latest.revision} />}
               </div>
             )}
@@ -91,29 +102,47 @@ export default async function HistoryPage({ params, searchParams }: Props) {
       </ol>
 
       <section aria-labelledby="diff-h" className="card space-y-4">
-        <h2 id="diff-h" className="text-xl">Compare two revisions</h2>
+        <h2 id="diff-h" className="text-xl">
+          Compare two revisions
+        </h2>
         {revisions.length < 2 ? (
           <p className="text-stone-700">There is only one revision so far.</p>
         ) : (
           <form method="get" className="flex flex-wrap items-end gap-3">
             <div>
-              <label htmlFor="diff-from" className="field-label">From</label>
+              <label htmlFor="diff-from" className="field-label">
+                From
+              </label>
               <select id="diff-from" name="from" defaultValue={from} className="field-input">
-                {revisions.map((r) => <option key={r.revision} value={r.revision}>{optionLabel(r.revision)}</option>)}
+                {revisions.map((r) => (
+                  <option key={r.revision} value={r.revision}>
+                    {optionLabel(r.revision)}
+                  </option>
+                ))}
               </select>
             </div>
             <div>
-              <label htmlFor="diff-to" className="field-label">To</label>
+              <label htmlFor="diff-to" className="field-label">
+                To
+              </label>
               <select id="diff-to" name="to" defaultValue={to} className="field-input">
-                {revisions.map((r) => <option key={r.revision} value={r.revision}>{optionLabel(r.revision)}</option>)}
+                {revisions.map((r) => (
+                  <option key={r.revision} value={r.revision}>
+                    {optionLabel(r.revision)}
+                  </option>
+                ))}
               </select>
             </div>
-            <button type="submit" className="btn-primary">Compare</button>
+            <button type="submit" className="btn-primary">
+              Compare
+            </button>
           </form>
         )}
         {diff && (
           <div className="space-y-4" data-testid="diff" aria-live="polite">
-            <p className="text-sm text-stone-700">Revision {from} → {to}</p>
+            <p className="text-sm text-stone-700">
+              Revision {from} → {to}
+            </p>
             {diff.same ? (
               <p className="rounded-lg border border-stone-200 bg-stone-50 p-3" data-testid="no-differences">
                 No differences: revisions {from} and {to} hold the same content.
@@ -124,7 +153,9 @@ export default async function HistoryPage({ params, searchParams }: Props) {
                   <h3 className="text-base font-semibold">Traits and fields</h3>
                   {diff.changes.length ? (
                     <ul className="mt-1 list-disc space-y-1 pl-5 break-words" data-testid="trait-changes">
-                      {diff.changes.map((c, i) => <li key={i}>{c.text}</li>)}
+                      {diff.changes.map((c, i) => (
+                        <li key={i}>{c.text}</li>
+                      ))}
                     </ul>
                   ) : (
                     <p className="mt-1 text-stone-700">No trait or field changed.</p>
@@ -138,8 +169,13 @@ export default async function HistoryPage({ params, searchParams }: Props) {
                         The Markdown as written, with <ins className="bg-moss-100 text-moss-900 no-underline">added words</ins> and{' '}
                         <del className="bg-clay-100 text-clay-700">removed words</del> marked in place.
                       </p>
-                      <div className="whitespace-pre-wrap break-words rounded-lg border border-stone-200 bg-stone-50 p-3 font-mono text-xs leading-relaxed" data-testid="body-diff">
-                        {diff.body.map((part, i) => <DiffPart key={i} part={part} />)}
+                      <div
+                        className="whitespace-pre-wrap break-words rounded-lg border border-stone-200 bg-stone-50 p-3 font-mono text-xs leading-relaxed"
+                        data-testid="body-diff"
+                      >
+                        {diff.body.map((part, i) => (
+                          <DiffPart key={i} part={part} />
+                        ))}
                       </div>
                     </>
                   ) : (
@@ -159,10 +195,22 @@ export default async function HistoryPage({ params, searchParams }: Props) {
 /** Unchanged runs of many lines fold to their first and last two lines. */
 function DiffPart({ part }: { part: BodyPart }) {
   if (part.kind === 'added') {
-    return <ins className="bg-moss-100 text-moss-900 no-underline" data-testid="diff-added"><span className="sr-only">[added: </span>{part.value}<span className="sr-only">]</span></ins>;
+    return (
+      <ins className="bg-moss-100 text-moss-900 no-underline" data-testid="diff-added">
+        <span className="sr-only">[added: </span>
+        {part.value}
+        <span className="sr-only">]</span>
+      </ins>
+    );
   }
   if (part.kind === 'removed') {
-    return <del className="bg-clay-100 text-clay-700" data-testid="diff-removed"><span className="sr-only">[removed: </span>{part.value}<span className="sr-only">]</span></del>;
+    return (
+      <del className="bg-clay-100 text-clay-700" data-testid="diff-removed">
+        <span className="sr-only">[removed: </span>
+        {part.value}
+        <span className="sr-only">]</span>
+      </del>
+    );
   }
   const lines = part.value.split('\n');
   const keep = 2;

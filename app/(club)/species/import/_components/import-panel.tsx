@@ -41,7 +41,12 @@ export function ImportPanel() {
     setBusy(true);
     setMessage(null);
     try {
-      const res = await sendJson<{ results: unknown[]; skipped: ImportPreviewItem[] }>('/api/species/import', 'POST', { files, publish, summary, skipInvalid: bad > 0 });
+      const res = await sendJson<{ results: unknown[]; skipped: ImportPreviewItem[] }>('/api/species/import', 'POST', {
+        files,
+        publish,
+        summary,
+        skipInvalid: bad > 0,
+      });
       const left = res.skipped.length ? ` ${res.skipped.length} file(s) with errors were left out; they are listed below.` : '';
       setMessage({ tone: 'ok', text: `Imported ${res.results.length} file(s) ${publish ? 'and published them' : 'as drafts'}.${left}` });
       // Keep the files that were left out on screen, with their messages, to fix and choose again.
@@ -61,21 +66,37 @@ export function ImportPanel() {
   return (
     <div className="space-y-6">
       <div className="card space-y-3">
-        <label htmlFor="import-files" className="field-label">Species files (.md, front matter and care notes)</label>
-        <input id="import-files" type="file" accept=".md,text/markdown" multiple className="field-input" onChange={(e) => void choose(e.target.files)} data-testid="import-files" />
+        <label htmlFor="import-files" className="field-label">
+          Species files (.md, front matter and care notes)
+        </label>
+        <input
+          id="import-files"
+          type="file"
+          accept=".md,text/markdown"
+          multiple
+          className="field-input"
+          onChange={(e) => void choose(e.target.files)}
+          data-testid="import-files"
+        />
         <p className="text-sm text-stone-700">Nothing is written until you confirm below. Files in the format of the download work as they are.</p>
       </div>
 
       {busy && <p role="status">Checking…</p>}
       {message && (
-        <p role="alert" data-testid="import-message" className={`rounded-lg border p-3 ${message.tone === 'error' ? 'border-clay-500 bg-clay-100 text-clay-700' : 'border-moss-500 bg-moss-50 text-moss-900'}`}>
+        <p
+          role="alert"
+          data-testid="import-message"
+          className={`rounded-lg border p-3 ${message.tone === 'error' ? 'border-clay-500 bg-clay-100 text-clay-700' : 'border-moss-500 bg-moss-50 text-moss-900'}`}
+        >
           {message.text} {message.tone === 'ok' && <Link href="/species">Back to the species</Link>}
         </p>
       )}
 
       {preview && (
         <section aria-labelledby="preview-h" className="space-y-3">
-          <h2 id="preview-h" className="text-xl">Preview</h2>
+          <h2 id="preview-h" className="text-xl">
+            Preview
+          </h2>
           <ul className="space-y-3" data-testid="import-preview">
             {preview.map((p) => (
               <li key={p.name} className={`card min-w-0 break-words ${p.ok ? '' : 'border-clay-500'}`}>
@@ -90,7 +111,11 @@ export function ImportPanel() {
                     <ul className="mt-2 list-disc pl-5 text-sm">
                       {Object.entries(p.fields ?? {}).map(([field, msgs]) => (
                         <li key={field} className="[overflow-wrap:anywhere]" data-field={field}>
-                          {msgs.map((m) => <span key={m} className="block">{m}</span>)}
+                          {msgs.map((m) => (
+                            <span key={m} className="block">
+                              {m}
+                            </span>
+                          ))}
                         </li>
                       ))}
                     </ul>
@@ -101,7 +126,9 @@ export function ImportPanel() {
           </ul>
           {done ? null : writable === 0 ? (
             <p role="status" className={bad > 0 ? 'text-clay-700' : ''}>
-              {bad > 0 ? `Fix the ${bad} file(s) with errors and choose them again; no file here can be imported yet.` : 'Every file matches what is already in the knowledge base.'}
+              {bad > 0
+                ? `Fix the ${bad} file(s) with errors and choose them again; no file here can be imported yet.`
+                : 'Every file matches what is already in the knowledge base.'}
             </p>
           ) : (
             <div className="card space-y-3">
@@ -111,7 +138,9 @@ export function ImportPanel() {
                 </p>
               )}
               <div>
-                <label htmlFor="import-summary" className="field-label">Edit summary</label>
+                <label htmlFor="import-summary" className="field-label">
+                  Edit summary
+                </label>
                 <input id="import-summary" className="field-input" value={summary} onChange={(e) => setSummary(e.target.value)} placeholder="Imported from …" />
               </div>
               <label className="flex min-h-target items-center gap-2">

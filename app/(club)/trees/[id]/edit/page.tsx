@@ -15,7 +15,9 @@ export default async function EditTreePage({ params }: { params: Promise<{ id: s
   const { id: _id, speciesName: _n, createdAt: _c, updatedAt: _u, ...initial } = tree;
   return (
     <div className="space-y-6">
-      <p><Link href={`/trees/${tree.id}`}>← {tree.name}</Link></p>
+      <p>
+        <Link href={`/trees/${tree.id}`}>← {tree.name}</Link>
+      </p>
       <h1 className="page-title">Edit {tree.name}</h1>
       <TreeForm species={species} initial={initial} treeId={tree.id} />
     </div>

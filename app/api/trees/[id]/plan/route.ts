@@ -12,7 +12,14 @@ export const GET = route<Params>(async (_req, { params }) => {
   const plan = await getTreePlan(actor, await treeIdOf(params));
   if (!plan) throw new AppError('not_found:species', 'This tree’s species is not published, so it has no plan.');
   return NextResponse.json(
-    { windows: plan.windows, degreeDaysToDate: plan.degreeDaysToDate, basis: plan.basis, seasonStart: plan.seasonStart, timeline: plan.timeline, notes: plan.notes },
+    {
+      windows: plan.windows,
+      degreeDaysToDate: plan.degreeDaysToDate,
+      basis: plan.basis,
+      seasonStart: plan.seasonStart,
+      timeline: plan.timeline,
+      notes: plan.notes,
+    },
     { headers: { 'cache-control': 'no-store' } },
   );
 });

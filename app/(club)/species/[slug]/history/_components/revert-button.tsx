@@ -36,7 +36,16 @@ export function RevertButton({ slug, toRevision, baseRevision }: { slug: string;
 
   if (!confirming) {
     return (
-      <button ref={startRef} type="button" className="btn-secondary" onClick={() => { setConfirming(true); setMoved(true); }} aria-label={`Revert to revision ${toRevision}`}>
+      <button
+        ref={startRef}
+        type="button"
+        className="btn-secondary"
+        onClick={() => {
+          setConfirming(true);
+          setMoved(true);
+        }}
+        aria-label={`Revert to revision ${toRevision}`}
+      >
         Revert to this
       </button>
     );
@@ -46,8 +55,21 @@ export function RevertButton({ slug, toRevision, baseRevision }: { slug: string;
       <button ref={confirmRef} type="button" className="btn-danger" disabled={busy} onClick={() => void revert()}>
         Publish a copy of revision {toRevision}
       </button>
-      <button type="button" className="btn-secondary" onClick={() => { setConfirming(false); setMoved(true); }}>Keep as is</button>
-      {error && <span role="alert" className="field-error">{error}</span>}
+      <button
+        type="button"
+        className="btn-secondary"
+        onClick={() => {
+          setConfirming(false);
+          setMoved(true);
+        }}
+      >
+        Keep as is
+      </button>
+      {error && (
+        <span role="alert" className="field-error">
+          {error}
+        </span>
+      )}
     </span>
   );
 }
