@@ -32,6 +32,9 @@ export async function signOut(page: Page) {
   const menu = page.getByTestId('menu-button');
   if (await menu.isVisible()) await menu.click();
   await page.getByRole('button', { name: 'Sign out' }).click();
+  // On a phone the signed-out header keeps Sign in in its menu too.
+  await expect(page.getByTestId('current-user')).toHaveCount(0);
+  if (await menu.isVisible()) await menu.click();
   await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 }
 
