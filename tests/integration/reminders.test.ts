@@ -24,7 +24,9 @@ async function outbox(): Promise<Mail[]> {
   const { body } = await admin.json('/api/outbox?limit=200', 'GET');
   return body.items;
 }
-const remindersTo = async (email: string) => (await outbox()).filter((m) => m.to.includes(email) && m.subject.includes('your trees in the week of'));
+// This file's week only: other files (the route matrix, the fuzzers) queue runs of their own weeks.
+const remindersTo = async (email: string, week = '10 May 2027') =>
+  (await outbox()).filter((m) => m.to.includes(email) && m.subject.includes('your trees in the week of') && m.subject.includes(week));
 
 async function finished(runId: string) {
   for (let i = 0; i < 300; i++) {

@@ -65,7 +65,13 @@ export async function speciesCreateBody(f: Fixtures) {
   const t = await templateSpecies(f);
   const epithet = uniqueLetters();
   const slug = `pinus-${epithet}`;
-  return { record: { ...t.record, slug, botanicalName: `Pinus ${epithet}` }, body: 'Care notes of a test species.', summary: 'security matrix', publish: true };
+  // Names of its own: a copy that kept the template's common names would compete with it in searches.
+  return {
+    record: { ...t.record, slug, botanicalName: `Pinus ${epithet}`, commonNames: [`Matrix pine ${epithet}`], synonyms: [] },
+    body: 'Care notes of a test species.',
+    summary: 'security matrix',
+    publish: true,
+  };
 }
 
 /** A published species the matrix may edit, so the demo species stay as they are. */

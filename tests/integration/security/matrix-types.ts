@@ -29,6 +29,11 @@ export interface RouteRow {
   expect: Record<Actor, Expect>;
   /** For fuzzing: who sends the bodies (the actor that gets furthest), and how to undo what a lucky body changed. */
   fuzz?: { as: Actor; restore?: (f: Fixtures) => Promise<void> };
+  /**
+   * Rows that read a shared record's revision and then write it: requests with the same key are
+   * built and sent one at a time, so parallel callers never race each other into a 409.
+   */
+  serial?: string;
 }
 
 // ── expectation shorthands ─────────────────────────────────────────────────────────────────
@@ -50,7 +55,26 @@ export const pageAtLeast = (role: 'editor' | 'librarian' | 'admin'): Record<Acto
 export const isMutating = (row: RouteRow) => row.method !== 'GET';
 
 /** Send one row's request as one actor, with extra headers; returns the response. */
-export async function sendRow(f: Fixtures, row: RouteRow, actor: Actor, extra: Record<string, string> = {}) {
+const queues = new Map<string, Promise<unknown>>();
+
+export async function sendRow(f: Fixtures, row: RouteRow, actor: Actor, extra: Record<string, string> = {}): Promise<Response> {
+  if (!row.serial) return buildAndSend(f, row, actor, extra);
+  const prev = queues.get(row.serial) ?? Promise.resolve();
+  // The next caller waits until this response's body has been read to the end.
+  const run = prev.then(async () => {
+    const res = await buildAndSend(f, row, actor, extra);
+    const text = await res.arrayBuffer();
+    const nullBody = [101, 204, 205, 304].includes(res.status);
+    return new Response(nullBody ? null : text, { status: res.status, statusText: res.statusText, headers: res.headers });
+  });
+  queues.set(
+    row.serial,
+    run.catch(() => {}),
+  );
+  return run;
+}
+
+async function buildAndSend(f: Fixtures, row: RouteRow, actor: Actor, extra: Record<string, string>) {
   const spec = await row.request(f, actor);
   const client = spec.client ?? (await f.client(actor));
   const headers: Record<string, string> = { ...spec.headers, ...extra };

@@ -218,6 +218,7 @@ export const clubRows: RouteRow[] = [
     kind: 'api',
     body: 'json',
     request: (f) => speciesPatch(f),
+    serial: 'matrix-species',
     expect: atLeast('editor', 200),
     fuzz: { as: 'editor' },
   },
@@ -241,6 +242,7 @@ export const clubRows: RouteRow[] = [
       const s = await currentSpecies(f, slug);
       return { path: `/api/species/${slug}/revert`, json: { toRevision: 1, baseRevision: s.revision, summary: 'matrix revert', publish: true } };
     },
+    serial: 'matrix-species',
     expect: atLeast('editor', 201),
     fuzz: { as: 'editor' },
   },
