@@ -36,7 +36,7 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
   await expect.poll(() => cached(page, 'member-data', '/api/trees')).toBe(true);
   await page.goto('/answers');
   await expect(page.getByRole('heading', { name: 'Your answers' })).toBeVisible();
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), { timeout: 30_000 }).toBe(true);
 
   await context.setOffline(true);
   await ask.open();
@@ -154,7 +154,11 @@ test('a saved answer the phone worked out differently shows both answers; offlin
   await page.setViewportSize({ width: 360, height: 740 });
 
   // Offline, the kept copy of the page says what needs a connection instead of pretending.
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  // The worker registers after the page is interactive and installs in the background: wait for it.
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), { timeout: 30_000 }).toBe(true);
   await page.reload();
   await context.setOffline(true);
   await page.reload();

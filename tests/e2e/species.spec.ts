@@ -100,7 +100,13 @@ test('an editor saves a draft and sees the change in the diff', async ({ page })
 
 test('an editor previews an import with errors per field before anything is written', async ({ page, request }) => {
   const good = await (await request.get('/api/species/pinus-cembra/export')).text();
-  const fresh = good.replace('slug: pinus-cembra', 'slug: pinus-nova').replace('botanicalName: Pinus cembra', 'botanicalName: Pinus nova');
+  // Names of its own, so later searches for the names of P. cembra still find P. cembra first.
+  const fresh = good
+    .replace('slug: pinus-cembra', 'slug: pinus-nova')
+    .replace('botanicalName: Pinus cembra', 'botanicalName: Pinus nova')
+    .replace(/commonNames:\n(  - .*\n)+/, 'commonNames:\n  - Preview pine\n')
+    .replace(/synonyms:\n(  - .*\n)+/, 'synonyms: []\n');
+  expect(fresh).toContain('Preview pine');
   const broken = good.replace('slug: pinus-cembra', 'slug: pinus-fracta').replace(/flushHabit:\n(\s+)value: single/, 'flushHabit:\n$1value: sometimes');
 
   await new SignInPage(page).withPassword('editor@candlewise.test');
@@ -111,8 +117,11 @@ test('an editor previews an import with errors per field before anything is writ
   ]);
   const preview = page.getByTestId('import-preview');
   await expect(preview).toContainText('New species');
-  await expect(preview).toContainText('traits.flushHabit.value');
-  await expect(page.getByRole('button', { name: /^Import/ })).toHaveCount(0);
+  // The field in words, what was found and the choices; no raw paths or enum dumps.
+  await expect(preview).toContainText('Flush habit (trade), value: “sometimes” is not one of the choices. Use single, double or polycyclic.');
+  await expect(preview).not.toContainText('traits.flushHabit.value');
+  // The good file may go in on its own, but nothing is written until the editor says so.
+  await expect(page.getByRole('button', { name: 'Import the 1 valid file(s)' })).toBeVisible();
   await page.screenshot({ path: screenshotPath('species-import-desktop'), fullPage: true });
   expect((await page.request.get('/api/species/pinus-nova')).status()).toBe(404);
 
