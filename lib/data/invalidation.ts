@@ -291,10 +291,17 @@ export async function stopInvalidationListener(handle: DbHandle): Promise<void> 
   await l.unlisten?.().catch(() => {});
 }
 
-/** The listener's state on `handle`: 'off' on PGlite or before it starts. */
+/**
+ * The listener's state on `handle`: 'off' on PGlite or before it starts; 'live' once it hears the
+ * channel and has heard the other processes for a full heartbeat ('connecting' until then).
+ */
 export function invalidationListenerState(handle: DbHandle): ListenerState {
-  return listeners.get(handle.db)?.state ?? 'off';
+  const l = listeners.get(handle.db);
+  if (!l) return 'off';
+  return l.state === 'live' && !knowsPeers(l) ? 'connecting' : l.state;
 }
+
+const knowsPeers = (l: Listener) => performance.now() - l.liveSince >= HEARTBEAT_MS * 1.2;
 
 /**
  * Resolves once the listener on `handle` is live and has listened for a full heartbeat (so it
@@ -306,7 +313,7 @@ export async function waitForInvalidationListener(handle: DbHandle, timeoutMs = 
   const deadline = performance.now() + timeoutMs;
   for (;;) {
     const now = performance.now();
-    if (l.state === 'live' && now - l.liveSince >= HEARTBEAT_MS * 1.2) return;
+    if (l.state === 'live' && knowsPeers(l)) return;
     if (now >= deadline) throw new Error(`The invalidation listener was not ready within ${timeoutMs} ms (state: ${l.state}).`);
     await new Promise((r) => setTimeout(r, Math.min(50, deadline - now)));
   }
