@@ -12,6 +12,8 @@ export interface DbHandle {
   kind: 'pglite' | 'postgres';
   /** The PGlite instance itself (backups dump its data directory); absent on PostgreSQL. */
   pglite?: import('@electric-sql/pglite').PGlite;
+  /** The postgres.js client itself (LISTEN for lib/data/invalidation.ts); absent on PGlite. */
+  postgres?: import('postgres').Sql;
   close(): Promise<void>;
 }
 
@@ -49,7 +51,7 @@ async function openPostgres(url: string, migrationsFolder: string): Promise<DbHa
   const sql = postgres(url, { max: 10, onnotice: () => {} });
   const db = drizzle(sql, { schema });
   await migrate(db, { migrationsFolder });
-  return { db: db as unknown as Db, kind: 'postgres', close: () => sql.end({ timeout: 5 }) };
+  return { db: db as unknown as Db, kind: 'postgres', postgres: sql, close: () => sql.end({ timeout: 5 }) };
 }
 
 async function openPglite(dir: string, migrationsFolder: string): Promise<DbHandle> {

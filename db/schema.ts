@@ -396,3 +396,17 @@ export const reminderRunMembers = pgTable(
   },
   (t) => [primaryKey({ columns: [t.runId, t.userId] })],
 );
+
+// Sign-in, sign-in link and sign-up limits when several server processes share one PostgreSQL
+// (lib/data/rate-limits.ts; on PGlite the counts stay in process memory). One row per key and fixed
+// window: `hits` is raised in one upsert, and `expiresAt` (two windows on) is when the row may go.
+export const rateLimits = pgTable(
+  'rate_limits',
+  {
+    key: text('key').notNull(),
+    windowStart: timestamp('window_start', { mode: 'date', withTimezone: true }).notNull(),
+    hits: integer('hits').notNull(),
+    expiresAt: timestamp('expires_at', { mode: 'date', withTimezone: true }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.key, t.windowStart] }), index('rate_limits_expires_idx').on(t.expiresAt)],
+);

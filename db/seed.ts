@@ -23,7 +23,7 @@ export const demoClub = { clubName: 'Riverside Pine Study Group', hemisphere: 'n
 
 export type Seeder = (db: Db) => Promise<void>;
 
-async function seedUsers(db: Db) {
+export async function seedUsers(db: Db) {
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
   for (const a of demoAccounts) {
     await db
@@ -33,7 +33,7 @@ async function seedUsers(db: Db) {
   }
 }
 
-async function seedSettings(db: Db) {
+export async function seedSettings(db: Db) {
   await db
     .insert(clubSettings)
     .values({ id: 1, ...demoClub })

@@ -4,7 +4,7 @@ export async function startServer() {
   // First, before any request: the client's address comes from the socket, not its headers.
   const { installPeerStamp } = await import('@/lib/http/client-address');
   installPeerStamp();
-  const { getDb } = await import('@/db/client');
+  const { getDb, getDbHandle } = await import('@/db/client');
   const { masterSecret } = await import('@/lib/auth/secret');
   try {
     // Refuse to start without a usable secret, rather than on the first sign-in.
@@ -14,6 +14,10 @@ export async function startServer() {
     console.error(`[candlewise] ${(e as Error).message}`);
     process.exit(1);
   }
+  // PostgreSQL: hear the other server processes' writes, so the caches can be shared safely
+  // (lib/data/invalidation.ts; a no-op on PGlite). It retries by itself until it is live.
+  const { startInvalidationListener } = await import('@/lib/data/invalidation');
+  startInvalidationListener(await getDbHandle());
   if (process.env.MAIL_FAKE === '1') {
     const { startFakeSmtp } = await import('@/lib/mail/fake-smtp');
     const port = Number(process.env.SMTP_FAKE_PORT ?? 2525);

@@ -8,7 +8,7 @@ import { getDb } from '@/db/client';
 import { accounts, sessions, users, verificationTokens } from '@/db/schema';
 import { env } from '@/lib/env';
 import { sessionKey } from '@/lib/auth/secret';
-import { invalidate } from '@/lib/auth/token-cache';
+import { announceInvalidation } from '@/lib/data/invalidation';
 import { signInSchema } from '@/lib/validation/auth';
 import { bumpTokenVersion, findSessionAccount, hasActiveAccount, isEmailAllowedToSignIn, verifyCredentials } from '@/lib/data/users';
 import { clientIp, recordSignInFailure } from './rate-limit';
@@ -51,7 +51,7 @@ function lazyAdapter(): Adapter {
       async (...args: unknown[]) => {
         const result = await (await load())[m](...args);
         // The adapter writes accounts too (e-mail sign-in marks the address verified).
-        if (m === 'updateUser' || m === 'deleteUser') invalidate();
+        if (m === 'updateUser' || m === 'deleteUser') await announceInvalidation({ kind: 'account' });
         return result;
       },
     ]),
@@ -88,12 +88,12 @@ export const authOptions: AuthOptions = {
         const parsed = signInSchema.safeParse(credentials);
         const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
         if (!parsed.success) {
-          recordSignInFailure(String(credentials?.email ?? ''), ip);
+          await recordSignInFailure(String(credentials?.email ?? ''), ip);
           return null;
         }
         const user = await verifyCredentials(parsed.data.email, parsed.data.password);
         if (!user) {
-          recordSignInFailure(parsed.data.email, ip);
+          await recordSignInFailure(parsed.data.email, ip);
           return null;
         }
         return { id: user.id, email: user.email, name: user.name };

@@ -15,22 +15,33 @@ export interface Account {
 // process so a signed-in request reads it from memory instead of the database.
 //
 // Correctness rests on one rule: every write to those columns calls invalidate(id) once it has
-// committed (bumpTokenVersion, updateUserByAdmin, updateProfile, the adapter's user writes; sign-out
+// committed, through announceInvalidation (lib/data/invalidation.ts; bumpTokenVersion, updateUserByAdmin, updateProfile, the adapter's user writes; sign-out
 // goes through bumpTokenVersion). A request that starts after the write then loads the account
 // afresh, so a role change, a disable or a sign-out takes effect on the very next request.
 //
 // Several server processes: PGlite allows one process per data directory (lib's lock file), so
-// there every write is made here and the cache is exact. On PostgreSQL another process may write,
-// and its write would not reach this cache; there the cache keeps nothing (every request reads
-// the account once) until a cross-process signal is wired to invalidate(): LISTEN/NOTIFY on a
-// channel that the writers above notify, whose listener calls invalidate(id) and then
-// sets `__cwAccountShared`. Nothing else in the app needs to change for that.
+// there every write is made here and the cache is exact. On PostgreSQL another process may write;
+// its writers announce it on the invalidation channel (lib/data/invalidation.ts, LISTEN/NOTIFY),
+// whose listener in this process calls invalidate(). The cache is used there only while that
+// listener is live (setAccountCacheShared, per database handle), and every entry also expires
+// after ACCOUNT_TTL_MS, the fallback should a notification ever be missed. Without a live listener
+// the cache keeps nothing: every request reads the account once.
 
 // Keyed by account id, then by database handle (tests open several in-memory databases in one
 // process and must never see each other's rows).
-type Entry = { value: Promise<Account | null> };
-const g = globalThis as unknown as { __cwAccountCache?: Map<string, WeakMap<object, Entry>>; __cwAccountShared?: boolean };
+type Entry = { value: Promise<Account | null>; expires: number };
+const g = globalThis as unknown as { __cwAccountCache?: Map<string, WeakMap<object, Entry>>; __cwAccountShared?: WeakSet<object> };
 const byId = (g.__cwAccountCache ??= new Map());
+const shared = (g.__cwAccountShared ??= new WeakSet());
+
+/** How long an account read on PostgreSQL is trusted at most (on PGlite: until a write). */
+export const ACCOUNT_TTL_MS = 30_000;
+
+/** PostgreSQL: whether this process hears every other process's account writes on `db`. */
+export function setAccountCacheShared(db: object, on: boolean) {
+  if (on) shared.add(db);
+  else shared.delete(db);
+}
 
 /** The account for a session, from memory when this process can know it is current. */
 export function cachedAccount(
@@ -38,13 +49,14 @@ export function cachedAccount(
   id: string,
   loadAccount: () => Promise<Account | null>,
 ): Promise<Account | null> {
-  if (handle.kind === 'postgres' && !g.__cwAccountShared) return loadAccount();
+  if (handle.kind === 'postgres' && !shared.has(handle.db)) return loadAccount();
   let perDb = byId.get(id);
   if (!perDb) byId.set(id, (perDb = new WeakMap()));
   const hit = perDb.get(handle.db);
-  if (hit) return hit.value;
+  const now = Date.now();
+  if (hit && hit.expires > now) return hit.value;
   const map = perDb;
-  const entry: Entry = { value: loadAccount() };
+  const entry: Entry = { value: loadAccount(), expires: handle.kind === 'postgres' ? now + ACCOUNT_TTL_MS : Infinity };
   map.set(handle.db, entry);
   // Neither a failed load nor an unknown id is kept.
   const drop = () => {

@@ -1,7 +1,8 @@
 import 'server-only';
 import { getDb } from '@/db/client';
 import { clubSettings } from '@/db/schema';
-import { cachedRead, invalidateReads } from './read-cache';
+import { cachedRead } from './read-cache';
+import { announceInvalidation } from './invalidation';
 import type { SessionUser } from '@/lib/auth/session';
 import type { SettingsInput } from '@/lib/validation/auth';
 import { assertRole } from '@/lib/auth/roles';
@@ -47,6 +48,6 @@ export async function updateClubSettings(actor: SessionUser, input: SettingsInpu
       defaultLatitude: clubSettings.defaultLatitude,
       decandleOffsetDays: clubSettings.decandleOffsetDays,
     });
-  invalidateReads('settings');
+  await announceInvalidation({ kind: 'settings' });
   return row;
 }

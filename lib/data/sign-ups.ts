@@ -32,7 +32,7 @@ export function queueSignUp(input: SignUpInput): void {
 /** What a queued sign-up does; resolves to which mail went out, if any. */
 async function startSignUp(input: SignUpInput): Promise<'confirm-sent' | 'member-told' | 'nothing'> {
   const email = emailKey(input.email);
-  if (!takeToken(`signup-mail:${email}`, SIGN_UP_MAILS_PER_ADDRESS_PER_HOUR, 60 * 60_000)) return 'nothing';
+  if (!(await takeToken(`signup-mail:${email}`, SIGN_UP_MAILS_PER_ADDRESS_PER_HOUR, 60 * 60_000))) return 'nothing';
   const db = await getDb();
   const [existing] = await db.select({ disabled: users.disabled }).from(users).where(eq(users.email, email)).limit(1);
   if (existing) {

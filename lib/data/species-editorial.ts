@@ -4,6 +4,7 @@ import { getDb, type Db } from '@/db/client';
 import { species, speciesRevisions } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { invalidateReads } from './read-cache';
+import { announceInvalidation } from './invalidation';
 import type { SessionUser } from '@/lib/auth/session';
 import { parseSpeciesMarkdown, speciesColumns } from '@/lib/species/content';
 import {
@@ -69,7 +70,9 @@ async function writeRevision(
     .set({ ...cols, publishedRevision, updatedAt: new Date() })
     .where(eq(species.id, row.id));
   // Cached wizard reads of species are stale from here on (PGlite queues other reads behind this
-  // transaction, so none can re-cache the old revision before it commits).
+  // transaction, so none can re-cache the old revision before it commits). After the commit the
+  // caller announces it too (again here, where PostgreSQL's other connections may have read, and
+  // to the other server processes).
   invalidateReads('species');
   return { slug: input.record.slug, revision, status, publishedRevision, latestRevision: revision };
 }
@@ -77,8 +80,8 @@ async function writeRevision(
 export async function createSpecies(actor: SessionUser, input: SpeciesCreateInput, exec?: Db | Tx): Promise<SavedRevision> {
   assertEditor(actor);
   const db = exec ?? (await getDb());
-  // Inside a caller's transaction this nests as a savepoint.
-  return db.transaction(async (tx) => {
+  // Inside a caller's transaction this nests as a savepoint (and the caller announces the write).
+  const saved = await db.transaction(async (tx) => {
     const [row] = await tx
       .insert(species)
       .values({ ...speciesColumns(input.record), latestRevision: 1, publishedRevision: null })
@@ -87,6 +90,8 @@ export async function createSpecies(actor: SessionUser, input: SpeciesCreateInpu
     if (!row) throw new AppError('conflict:slug', 'A species with this slug already exists.', { 'record.slug': ['Already in the knowledge base'] });
     return writeRevision(tx, row, 1, input, actor);
   });
+  if (!exec) await announceInvalidation({ kind: 'species' });
+  return saved;
 }
 
 async function saveOnBase(
@@ -101,7 +106,7 @@ async function saveOnBase(
     throw new AppError('invalid:slug', 'The slug of a species cannot change.', { 'record.slug': [`Keep it as ${slug}`] });
   }
   const db = exec ?? (await getDb());
-  return db.transaction(async (tx) => {
+  const saved = await db.transaction(async (tx) => {
     const [current] = await tx
       .select({ id: species.id, latestRevision: species.latestRevision, publishedRevision: species.publishedRevision })
       .from(species)
@@ -124,6 +129,8 @@ async function saveOnBase(
     }
     return writeRevision(tx, current, baseRevision + 1, input, actor);
   });
+  if (!exec) await announceInvalidation({ kind: 'species' });
+  return saved;
 }
 
 export function updateSpecies(actor: SessionUser, slug: string, input: SpeciesPatchInput): Promise<SavedRevision> {
@@ -253,7 +260,8 @@ export async function commitSpeciesImport(
     }
     return results;
   });
-  // Again after the commit: a read on another connection during the transaction may have cached the old rows.
-  invalidateReads('species');
+  // Again after the commit: a read on another connection during the transaction may have cached
+  // the old rows; and the other server processes hear of it.
+  await announceInvalidation({ kind: 'species' });
   return { results, skipped };
 }

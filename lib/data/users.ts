@@ -6,7 +6,8 @@ import { AppError } from '@/lib/errors';
 import { verifyPassword } from '@/lib/auth/password';
 import type { SessionUser } from '@/lib/auth/session';
 import { assertRole } from '@/lib/auth/roles';
-import { cachedAccount, invalidate, type Account } from '@/lib/auth/token-cache';
+import { cachedAccount, type Account } from '@/lib/auth/token-cache';
+import { announceInvalidation } from './invalidation';
 
 export interface UserDto {
   id: string;
@@ -88,7 +89,7 @@ export async function bumpTokenVersion(id: string) {
     .update(users)
     .set({ tokenVersion: sql`${users.tokenVersion} + 1` })
     .where(eq(users.id, id));
-  invalidate(id);
+  await announceInvalidation({ kind: 'account', id });
 }
 
 const sortable = { name: users.name, email: users.email, role: users.role, createdAt: users.createdAt } as const;
@@ -120,7 +121,7 @@ export async function updateUserByAdmin(actor: SessionUser, id: string, patch: {
     .set({ ...patch, tokenVersion: sql`${users.tokenVersion} + 1` })
     .where(eq(users.id, id))
     .returning(dtoColumns);
-  invalidate(id);
+  await announceInvalidation({ kind: 'account', id });
   if (!rows[0]) throw new AppError('not_found:user');
   return toDto(rows[0]);
 }
@@ -141,7 +142,7 @@ export async function updateProfile(actor: SessionUser, patch: { name?: string; 
     .set(patch)
     .where(and(eq(users.id, actor.id)))
     .returning(dtoColumns);
-  invalidate(actor.id);
+  await announceInvalidation({ kind: 'account', id: actor.id });
   if (!u) throw new AppError('not_found:user');
   return toDto(u);
 }

@@ -12,6 +12,16 @@ describe('health', () => {
     expect(body.database.ok).toBe(true);
     expect(body.database.kind).toBe(inject('dbKind'));
   });
+
+  it("reports the cache-invalidation listener: live on PostgreSQL, off on PGlite's one process", async () => {
+    const want = inject('dbKind') === 'postgres' ? 'live' : 'off';
+    let got: unknown;
+    for (let i = 0; i < 100 && got !== want; i++) {
+      got = ((await (await fetch(`${base}/api/health`)).json()) as { invalidation: unknown }).invalidation;
+      if (got !== want) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(got).toBe(want);
+  });
 });
 
 describe('sign-in with password', () => {

@@ -9,6 +9,7 @@ import {
   outboxMessages,
   pendingSignUps,
   photos,
+  rateLimits,
   reminderRunMembers,
   reminderRuns,
   reminderSends,
@@ -178,5 +179,12 @@ export async function fillAwkwardRows(db: Db) {
     messageId: '<reminder.awkward@candlewise.test>',
     tasks: 2,
     reason: awkward,
+  });
+  // Limiter counts are short-lived, but a dump carries them like any row (a key can be any text).
+  await db.insert(rateLimits).values({
+    key: `e:${awkward}`,
+    windowStart: new Date('2026-12-03T06:01:00.000Z'),
+    hits: 7,
+    expiresAt: new Date('2026-12-03T06:03:00.000Z'),
   });
 }

@@ -14,7 +14,7 @@ import { env } from '@/lib/env';
 // what follows (a link that creates the account, or a note that they have one already).
 export const POST = route(async (req) => {
   // A handful of sign-ups per client and hour: enough for a family on one connection.
-  if (!takeToken(`signup-ip:${clientIp(req.headers)}`, env.SIGNUPS_PER_CLIENT_PER_HOUR, 60 * 60_000)) {
+  if (!(await takeToken(`signup-ip:${clientIp(req.headers)}`, env.SIGNUPS_PER_CLIENT_PER_HOUR, 60 * 60_000))) {
     throw new AppError('rate_limited:sign-up', 'Too many sign-ups from here. Try again in an hour.');
   }
   const input = await parseJson(req, signUpSchema);

@@ -1,6 +1,8 @@
 import http from 'node:http';
 import net from 'node:net';
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { openDatabase, type DbHandle } from '@/db/open';
+import { setDbHandle } from '@/db/client';
 import { clientIp, emailKey, isSignInBlocked, MAX_FAILURES_PER_EMAIL, recordSignInFailure } from '@/lib/auth/rate-limit';
 import { PEER_HEADER, stampPeer } from '@/lib/http/client-address';
 
@@ -15,6 +17,14 @@ function incoming(headers: Record<string, string>, remoteAddress = '10.1.2.3') {
 afterEach(() => {
   delete process.env.TRUST_PROXY;
 });
+
+// The limiter asks which database it runs on (PGlite here: the counts stay in memory).
+let handle: DbHandle;
+beforeAll(async () => {
+  handle = await openDatabase({ pgliteDir: 'memory' });
+  setDbHandle(handle);
+});
+afterAll(() => handle.close());
 
 describe('the client address', () => {
   it('is the socket peer, whatever forwarding headers the client sends', () => {
@@ -40,9 +50,9 @@ describe('the e-mail key', () => {
     expect(emailKey(['member@candlewise.test'])).toBe('');
   });
 
-  it('blocks an address after its failures, in any spelling', () => {
+  it('blocks an address after its failures, in any spelling', async () => {
     const email = `key-${Date.now()}@candlewise.test`;
-    for (let i = 0; i < MAX_FAILURES_PER_EMAIL; i++) recordSignInFailure(email.toUpperCase(), `10.9.9.${i}`);
-    expect(isSignInBlocked(` ${email}`, '10.8.8.8')).toBe(true);
+    for (let i = 0; i < MAX_FAILURES_PER_EMAIL; i++) await recordSignInFailure(email.toUpperCase(), `10.9.9.${i}`);
+    expect(await isSignInBlocked(` ${email}`, '10.8.8.8')).toBe(true);
   });
 });

@@ -59,15 +59,15 @@ export async function POST(req: NextRequest, ctx: Ctx) {
   const body = parseLikeNextAuth(req.headers.get('content-type') ?? '', bytes);
   const ip = clientIp(req.headers);
   if (action === 'callback' && provider === 'credentials') {
-    if (isSignInBlocked(emailKey(body?.email), ip)) {
+    if (await isSignInBlocked(emailKey(body?.email), ip)) {
       return limited('Too many failed sign-ins. Wait a minute and try again.', 'RateLimited');
     }
   }
   if (action === 'signin' && provider === 'email') {
     // Counted for known and unknown addresses alike, so a refusal says nothing about membership.
     const key = emailKey(body?.email);
-    const perIp = takeToken(`link-ip:${ip}`, MAX_LINKS_PER_IP, LINK_WINDOW_MS);
-    const perEmail = key ? takeToken(`link-e:${key}`, MAX_LINKS_PER_EMAIL, LINK_WINDOW_MS) : true;
+    const perIp = await takeToken(`link-ip:${ip}`, MAX_LINKS_PER_IP, LINK_WINDOW_MS);
+    const perEmail = key ? await takeToken(`link-e:${key}`, MAX_LINKS_PER_EMAIL, LINK_WINDOW_MS) : true;
     if (!perIp || !perEmail) return limited('Too many sign-in links asked for. Wait a few minutes and try again.', 'RateLimited');
   }
   // Hand next-auth the very bytes we counted and read.
