@@ -87,6 +87,8 @@ export interface Cluster {
   b: ClusterApp;
   postgres: Postgres;
   s3: FakeS3;
+  /** The UPLOADS_DIR both apps are given; with S3 set, nothing may appear in it. */
+  uploadsDir: string;
   /** Stops both apps, then the fake S3 server and PostgreSQL, and removes their directories. */
   stop(): Promise<void>;
 }
@@ -111,6 +113,21 @@ function tsxScript(script: string, env: Record<string, string>) {
     encoding: 'utf8',
   });
   if (r.status !== 0) throw new Error(`${script} failed: ${r.stderr}${r.stdout}`);
+}
+
+/**
+ * Resolves once the process's cache-invalidation listener reports itself live on /api/health
+ * (it hears its own notifications on PostgreSQL); until then a write through the other process
+ * could go unheard.
+ */
+async function invalidationLive(app: NextProcess): Promise<void> {
+  const deadline = Date.now() + 20_000;
+  for (;;) {
+    const health = (await (await fetch(`${app.url}/api/health`)).json()) as { invalidation?: string };
+    if (health.invalidation === 'live') return;
+    if (Date.now() > deadline) throw new Error(`${app.url}: cache invalidation listener not live (${health.invalidation})`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
 }
 
 export async function startCluster(opts: ClusterOptions = {}): Promise<Cluster> {
@@ -171,7 +188,9 @@ export async function startCluster(opts: ClusterOptions = {}): Promise<Cluster> 
     // One after the other: both run the (already applied) migrations check at start.
     const a = await start('A', portA);
     const b = await start('B', portB);
-    return { a, b, postgres, s3, stop: stopAll };
+    step('waiting for both processes to hear cache invalidations');
+    await Promise.all([a, b].map(invalidationLive));
+    return { a, b, postgres, s3, uploadsDir: shared.UPLOADS_DIR, stop: stopAll };
   } catch (e) {
     await stopAll();
     throw e;
