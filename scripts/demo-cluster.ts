@@ -22,35 +22,40 @@ async function main() {
     console.error('✖ PORT_A and PORT_B must differ');
     process.exit(2);
   }
-  let cluster: Cluster | undefined;
-  let stopping = false;
-  const stop = async (code: number) => {
-    if (stopping) return;
-    stopping = true;
-    console.log('\n▶ stopping both apps, the fake S3 server and PostgreSQL');
-    await cluster?.stop();
-    console.log('✔ stopped; temporary directories removed');
-    process.exit(code);
-  };
-  for (const sig of ['SIGINT', 'SIGTERM'] as const) process.on(sig, () => void stop(0));
-
   const prefix = (name: string, chunk: string) =>
     chunk
       .split('\n')
       .filter((l) => l.trim())
       .map((l) => `[${name}] ${l}`)
       .join('\n');
+  const starting: Promise<Cluster> = startCluster({
+    ports,
+    detached: true,
+    onStep: (label) => console.log(`▶ ${label}`),
+    onOutput: (name, chunk) => {
+      const text = prefix(name, chunk);
+      if (text) console.log(text);
+    },
+  });
+
+  let stopping = false;
+  const stop = async (code: number) => {
+    if (stopping) return;
+    stopping = true;
+    console.log('\n▶ stopping both apps, the fake S3 server and PostgreSQL');
+    // A signal during start-up waits for it to finish (or fail, having stopped what it started).
+    const cluster = await starting.catch(() => undefined);
+    await cluster?.stop();
+    console.log('✔ stopped; temporary directories removed');
+    process.exit(code);
+  };
+  for (const sig of ['SIGINT', 'SIGTERM'] as const) process.on(sig, () => void stop(0));
+
+  let cluster: Cluster;
   try {
-    cluster = await startCluster({
-      ports,
-      detached: true,
-      onStep: (label) => console.log(`▶ ${label}`),
-      onOutput: (name, chunk) => {
-        const text = prefix(name, chunk);
-        if (text) console.log(text);
-      },
-    });
+    cluster = await starting;
   } catch (e) {
+    if (stopping) return;
     console.error(`✖ ${(e as Error).message}`);
     // startCluster has already stopped what it started.
     process.exit(1);

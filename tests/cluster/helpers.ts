@@ -12,11 +12,11 @@ export function sameBrowserOn(c: Client, base: string): Client {
   return other;
 }
 
-/** A new tree of `c`'s, for photos. */
-export async function newTree(c: Client, name: string): Promise<string> {
+/** A new tree of `c`'s. */
+export async function newTree(c: Client, name: string, speciesSlug = 'pinus-mugo'): Promise<string> {
   const r = await c.json('/api/trees', 'POST', {
     name,
-    speciesSlug: 'pinus-mugo',
+    speciesSlug,
     stageNotes: '',
     containerShape: 'round',
     containerLengthCm: 30,

@@ -1,16 +1,19 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, type Client, type SentMail } from '../support/http-client';
-import { A, B, sameBrowserOn } from './helpers';
+import { Fixtures } from '../integration/security/fixtures';
+import { A, B, newTree, sameBrowserOn } from './helpers';
 
 // Both processes run the job queue's worker on the one database. A reminder run for the same week
 // queued through A and through B at the same moment sends each member's message once: the queue's
 // locking and the one-reminder-per-member-and-week rule hold across processes.
-// The demo member has reminders on and a Scots pine whose candle work falls in May.
+// The demo member has reminders on and a Scots pine whose candle work falls in May; a few more
+// members with a Scots pine each give the two workers several member jobs to share.
 const WEEK = '2027-05-24'; // a Monday, used by no other test of this suite
 const SUBJECT = '24 May 2027';
 
 let adminA: Client;
 let adminB: Client;
+const members = ['member@candlewise.test'];
 
 async function finished(admin: Client, runId: string) {
   for (let i = 0; i < 600; i++) {
@@ -31,6 +34,13 @@ async function remindersOfTheWeek(): Promise<SentMail[]> {
 beforeAll(async () => {
   adminA = await signedIn(A, 'admin@candlewise.test');
   adminB = sameBrowserOn(adminA, B);
+  const f = new Fixtures(A);
+  for (let i = 0; i < 4; i++) {
+    const acc = await f.newMember(`remind-${i}`);
+    await newTree(acc.client, `Reminder Scots ${i}`, 'pinus-sylvestris');
+    expect((await acc.client.json('/api/me', 'PATCH', { reminderOptIn: true })).status).toBe(200);
+    members.push(acc.email);
+  }
 });
 
 describe('a reminder run queued on both processes', () => {
@@ -52,7 +62,7 @@ describe('a reminder run queued on both processes', () => {
 
     const mails = await remindersOfTheWeek();
     const recipients = mails.flatMap((m) => m.to);
-    expect(recipients).toContain('member@candlewise.test');
+    for (const email of members) expect(recipients).toContain(email);
     // Nobody twice, and the two runs together sent exactly what arrived.
     expect(new Set(recipients).size).toBe(recipients.length);
     expect(runA.sent + runB.sent).toBe(mails.length);

@@ -139,7 +139,8 @@ export async function spawnNext(opts: {
   for (;;) {
     if (child.exitCode !== null || child.signalCode !== null) throw new Error(`server exited early:\n${output}`);
     try {
-      const res = await fetch(`${url}/api/health`);
+      // Bounded: whatever else holds the port may never answer.
+      const res = await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(2000) });
       if (res.ok && output.includes('mail fake listening')) break;
     } catch {
       /* not up yet */

@@ -1,6 +1,7 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
+import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { freePort, spawnNext, type NextProcess } from './app-server';
@@ -106,13 +107,21 @@ export interface ClusterOptions {
   detached?: boolean;
 }
 
+function portIsFree(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const srv = net.createServer();
+    srv.once('error', () => resolve(false));
+    srv.listen(port, '127.0.0.1', () => srv.close(() => resolve(true)));
+  });
+}
+
 function tsxScript(script: string, env: Record<string, string>) {
   const r = spawnSync(path.join(root, 'node_modules/.bin/tsx'), ['--conditions=react-server', script], {
     cwd: root,
     env: env as NodeJS.ProcessEnv,
     encoding: 'utf8',
   });
-  if (r.status !== 0) throw new Error(`${script} failed: ${r.stderr}${r.stdout}`);
+  if (r.status !== 0) throw new Error(`${script} failed${r.signal ? ` (${r.signal})` : ''}: ${r.stderr}${r.stdout}`);
 }
 
 /**
@@ -123,7 +132,7 @@ function tsxScript(script: string, env: Record<string, string>) {
 async function invalidationLive(app: NextProcess): Promise<void> {
   const deadline = Date.now() + 20_000;
   for (;;) {
-    const health = (await (await fetch(`${app.url}/api/health`)).json()) as { invalidation?: string };
+    const health = (await (await fetch(`${app.url}/api/health`, { signal: AbortSignal.timeout(5000) })).json()) as { invalidation?: string };
     if (health.invalidation === 'live') return;
     if (Date.now() > deadline) throw new Error(`${app.url}: cache invalidation listener not live (${health.invalidation})`);
     await new Promise((r) => setTimeout(r, 100));
@@ -141,11 +150,16 @@ export async function startCluster(opts: ClusterOptions = {}): Promise<Cluster> 
     for (const s of stops.splice(0).reverse()) await s().catch((e) => console.error(e));
   };
   try {
+    // Before anything starts: a port taken by something else fails at once.
+    const [portA, portB] = opts.ports ?? [await freePort(), await freePort()];
+    for (const p of [portA, portB]) {
+      if (!(await portIsFree(p))) throw new Error(`Port ${p} is in use: stop what holds it, or choose others with PORT_A and PORT_B.`);
+    }
     step('PostgreSQL');
     const postgres = await startPostgres();
     stops.push(postgres.stop);
     step('fake S3');
-    const s3 = await startFakeS3();
+    const s3 = await startFakeS3('candlewise-photos', await freePort());
     stops.push(s3.stop);
     // Nothing is written to local directories with DATABASE_URL and S3 set; these only keep the
     // defaults (./data) untouched should anything look at them.
@@ -177,7 +191,6 @@ export async function startCluster(opts: ClusterOptions = {}): Promise<Cluster> 
     step('seed the demo club');
     tsxScript('scripts/db-seed.ts', shared);
 
-    const [portA, portB] = opts.ports ?? [await freePort(), await freePort()];
     const start = async (name: 'A' | 'B', port: number): Promise<ClusterApp> => {
       const env = { ...shared, PORT: String(port), NEXTAUTH_URL: `http://127.0.0.1:${port}`, SMTP_FAKE_PORT: String(await freePort()) };
       step(`app ${name} on port ${port}`);
