@@ -30,9 +30,9 @@ export interface Account {
 // Keyed by account id, then by database handle (tests open several in-memory databases in one
 // process and must never see each other's rows).
 type Entry = { value: Promise<Account | null>; expires: number };
-const g = globalThis as unknown as { __cwAccountCache?: Map<string, WeakMap<object, Entry>>; __cwAccountShared?: WeakSet<object> };
+const g = globalThis as unknown as { __cwAccountCache?: Map<string, WeakMap<object, Entry>>; __cwAccountSharedDbs?: WeakSet<object> };
 const byId = (g.__cwAccountCache ??= new Map());
-const shared = (g.__cwAccountShared ??= new WeakSet());
+const shared = (g.__cwAccountSharedDbs ??= new WeakSet());
 
 /** How long an account read on PostgreSQL is trusted at most (on PGlite: until a write). */
 export const ACCOUNT_TTL_MS = 30_000;

@@ -17,17 +17,20 @@ import { invalidateReads } from './read-cache';
 // When can a process trust its caches? Only while its listener hears the channel. postgres.js
 // re-subscribes by itself after its listening connection drops, and calls back on every
 // (re)subscription; but it says nothing when the connection goes, and a half-open TCP connection
-// may go unnoticed for minutes. So the listener also sends itself a ping every HEARTBEAT_MS and
+// may go unnoticed for minutes. So the listener also pings the channel every HEARTBEAT_MS and
 // counts itself live only while its own notifications come back within DEAD_AFTER_MS. On going
 // live (first start, a reconnect, pings answered again) every cached entry is dropped, since
 // notifications may have been missed meanwhile; while not live the account cache keeps nothing
 // (setAccountCacheShared) and the read cache has only its short TTL. Should a notification still
 // be missed while live, the TTLs bound the damage (token-cache.ts ACCOUNT_TTL_MS, read-cache.ts).
 //
-// A writer also waits (at most ECHO_WAIT_MS) for its own notification to come back before it
-// answers: PostgreSQL hands a notification to every listening session at the same commit, so by
-// then the other processes' listeners have been sent it too, and a request the client makes next
-// to another process finds its cache already dropped.
+// A notification reaches each listening process on its own schedule, so a writer waits (at most
+// ACK_WAIT_MS) before it answers: for its own notification to come back, and for an
+// acknowledgement from every other live process it knows of (the pings say who is there and
+// whether its listener is live). By the time a role change or a sign-out has been answered, every
+// other live process has dropped its copy, and the very next request there reads the account
+// afresh. A process that has just started learns of the others from their pings:
+// waitForInvalidationListener() resolves once it has listened for a full heartbeat.
 //
 // PGlite: one process per data directory, nothing to tell; announceInvalidation only drops this
 // process's entries, exactly as before.
@@ -42,12 +45,21 @@ export type Invalidation =
   /** The club settings changed. */
   | { kind: 'settings' };
 
-type Wire = (Invalidation | { kind: 'ping' }) & { from: string; n: number };
+type Control =
+  /** I am here, and whether my listener is live. */
+  | { kind: 'ping'; live: boolean }
+  /** I have applied notification `of` from `to`. */
+  | { kind: 'ack'; to: string; of: number }
+  /** I am stopping: wait for me no more. */
+  | { kind: 'bye' };
+type Wire = (Invalidation | Control) & { from: string; n: number };
 
 const HEARTBEAT_MS = 1_000;
 const DEAD_AFTER_MS = 3_000;
-const ECHO_WAIT_MS = 1_000;
+const ACK_WAIT_MS = 1_000;
 const RETRY_MS = 2_000;
+/** The tag of a writer without a listener of its own (a script): nobody acknowledges to it. */
+const ANONYMOUS = 'writer';
 
 export type ListenerState = 'off' | 'connecting' | 'live' | 'down';
 
@@ -57,8 +69,12 @@ interface Listener {
   n: number;
   state: ListenerState;
   lastEcho: number;
-  echoes: Map<number, () => void>;
-  onLive: Set<() => void>;
+  /** When the listener last went live (learning who else is there takes one heartbeat). */
+  liveSince: number;
+  /** The other processes on this database whose listeners are live: when each was last heard. */
+  peers: Map<string, number>;
+  /** Announcements still waiting for their echo and acknowledgements, by number. */
+  pending: Map<number, { waiting: Set<string>; done: () => void }>;
   timer: ReturnType<typeof setInterval> | null;
   unlisten: (() => Promise<void>) | null;
   stopped: boolean;
@@ -80,10 +96,21 @@ function dropEverything() {
 
 function parse(payload: string): Wire | null {
   try {
-    const m = JSON.parse(payload) as Partial<Wire> & { id?: unknown };
-    if (typeof m.from !== 'string' || typeof m.n !== 'number') return null;
-    if (m.kind === 'account') return { kind: 'account', id: typeof m.id === 'string' ? m.id : undefined, from: m.from, n: m.n };
-    if (m.kind === 'species' || m.kind === 'settings' || m.kind === 'ping') return { kind: m.kind, from: m.from, n: m.n };
+    const m = JSON.parse(payload) as Record<string, unknown>;
+    const { from, n } = m;
+    if (typeof from !== 'string' || typeof n !== 'number') return null;
+    switch (m.kind) {
+      case 'account':
+        return { kind: 'account', id: typeof m.id === 'string' ? m.id : undefined, from, n };
+      case 'species':
+      case 'settings':
+      case 'bye':
+        return { kind: m.kind, from, n };
+      case 'ping':
+        return { kind: 'ping', live: m.live === true, from, n };
+      case 'ack':
+        return typeof m.to === 'string' && typeof m.of === 'number' ? { kind: 'ack', to: m.to, of: m.of, from, n } : null;
+    }
   } catch {
     /* not ours */
   }
@@ -98,26 +125,23 @@ function setState(handle: DbHandle, l: Listener, state: ListenerState) {
     // Whatever was cached before may have missed a notification.
     dropEverything();
     setAccountCacheShared(handle.db, true);
-    l.lastEcho = performance.now();
-    for (const f of l.onLive) f();
-    l.onLive.clear();
-  } else {
-    setAccountCacheShared(handle.db, false);
-    if (wasLive) dropEverything();
-    if (wasLive && state === 'down') {
-      console.error('[candlewise] invalidation listener down: caches are not shared until it hears the channel again');
-    }
+    l.lastEcho = l.liveSince = performance.now();
+    return;
   }
+  setAccountCacheShared(handle.db, false);
+  if (wasLive) dropEverything();
+  if (wasLive && state === 'down') console.error('[candlewise] invalidation listener down: caches are not shared until it hears the channel again');
 }
 
-async function send(handle: DbHandle, payload: string) {
-  await handle.db.execute(sql`select pg_notify(${INVALIDATION_CHANNEL}, ${payload})`);
+async function send(handle: DbHandle, wire: Wire) {
+  await handle.db.execute(sql`select pg_notify(${INVALIDATION_CHANNEL}, ${JSON.stringify(wire)})`);
 }
 
 /**
- * After a committed write: drop the stale entries here and, on PostgreSQL, in every other process
- * (resolves once this process's listener has heard its own notification, or after ECHO_WAIT_MS).
- * A failed notification is logged, never thrown: the write has committed, and the TTLs cover it.
+ * After a committed write: drop the stale entries here and, on PostgreSQL, in every other process.
+ * Resolves once this process's listener has heard its own notification and every other live
+ * process has acknowledged it, or after ACK_WAIT_MS. A failed notification is logged, never
+ * thrown: the write has committed, and the TTLs cover it.
  */
 export async function announceInvalidation(msg: Invalidation, handle?: DbHandle): Promise<void> {
   apply(msg);
@@ -125,36 +149,47 @@ export async function announceInvalidation(msg: Invalidation, handle?: DbHandle)
   if (h.kind !== 'postgres') return;
   const l = listeners.get(h.db);
   const n = l ? ++l.n : 0;
-  const echoed = l?.state === 'live' ? echo(l, n) : null;
+  const heard = l?.state === 'live' ? acknowledged(l, n) : null;
   try {
-    await notifyInvalidation(h, msg, { from: l?.from ?? 'writer', n });
+    await notifyInvalidation(h, msg, { from: l?.from ?? ANONYMOUS, n });
   } catch (e) {
+    l?.pending.get(n)?.done();
     console.error('[candlewise] invalidation not sent', e instanceof Error ? e.message : e);
     return;
   }
-  await echoed;
+  await heard;
 }
 
-function echo(l: Listener, n: number): Promise<void> {
+/** Waits for the echo of announcement `n` and an acknowledgement from each live peer. */
+function acknowledged(l: Listener, n: number): Promise<void> {
+  const now = performance.now();
+  const waiting = new Set([l.from]);
+  for (const [peer, seen] of l.peers) if (now - seen <= DEAD_AFTER_MS) waiting.add(peer);
   return new Promise((resolve) => {
-    const t = setTimeout(() => {
-      l.echoes.delete(n);
-      resolve();
-    }, ECHO_WAIT_MS);
-    t.unref?.();
-    l.echoes.set(n, () => {
+    const done = () => {
       clearTimeout(t);
+      l.pending.delete(n);
       resolve();
-    });
+    };
+    const t = setTimeout(done, ACK_WAIT_MS);
+    t.unref?.();
+    l.pending.set(n, { waiting, done });
   });
+}
+
+function heardFrom(l: Listener, of: number, who: string) {
+  const p = l.pending.get(of);
+  if (!p) return;
+  p.waiting.delete(who);
+  if (p.waiting.size === 0) p.done();
 }
 
 /**
  * Send an invalidation on the channel only (no local effect). Writers use announceInvalidation;
  * this is the wire itself, for tests that play another process.
  */
-export async function notifyInvalidation(handle: DbHandle, msg: Invalidation, tag: { from: string; n: number } = { from: 'writer', n: 0 }) {
-  await send(handle, JSON.stringify({ ...msg, ...tag }));
+export async function notifyInvalidation(handle: DbHandle, msg: Invalidation, tag: { from: string; n: number } = { from: ANONYMOUS, n: 0 }) {
+  await send(handle, { ...msg, ...tag });
 }
 
 /**
@@ -169,25 +204,41 @@ export function startInvalidationListener(handle: DbHandle): void {
     n: 0,
     state: 'connecting',
     lastEcho: 0,
-    echoes: new Map(),
-    onLive: new Set(),
+    liveSince: 0,
+    peers: new Map(),
+    pending: new Map(),
     timer: null,
     unlisten: null,
     stopped: false,
   };
   listeners.set(handle.db, l);
+  const tell = (m: Control) => send(handle, { ...m, from: l.from, n: ++l.n });
 
   const onNotify = (payload: string) => {
     const m = parse(payload);
-    if (!m) return;
+    if (!m || l.stopped) return;
     if (m.from === l.from) {
       l.lastEcho = performance.now();
       if (l.state !== 'live') setState(handle, l, 'live');
-      l.echoes.get(m.n)?.();
-      l.echoes.delete(m.n);
+      heardFrom(l, m.n, l.from);
       return;
     }
-    if (m.kind !== 'ping') apply(m);
+    switch (m.kind) {
+      case 'ping':
+        if (m.live) l.peers.set(m.from, performance.now());
+        else l.peers.delete(m.from);
+        return;
+      case 'bye':
+        l.peers.delete(m.from);
+        for (const of of [...l.pending.keys()]) heardFrom(l, of, m.from);
+        return;
+      case 'ack':
+        if (m.to === l.from) heardFrom(l, m.of, m.from);
+        return;
+      default:
+        apply(m);
+        if (l.state === 'live' && m.from !== ANONYMOUS) tell({ kind: 'ack', to: m.from, of: m.n }).catch(() => {});
+    }
   };
   // Called on the first subscription and after every reconnect: from here on nothing is missed.
   const onListen = () => {
@@ -215,7 +266,7 @@ export function startInvalidationListener(handle: DbHandle): void {
   l.timer = setInterval(() => {
     if (l.stopped) return;
     if (l.state === 'live' && performance.now() - l.lastEcho > DEAD_AFTER_MS) setState(handle, l, 'down');
-    send(handle, JSON.stringify({ kind: 'ping', from: l.from, n: ++l.n })).catch(() => {
+    tell({ kind: 'ping', live: l.state === 'live' }).catch(() => {
       if (l.state === 'live') setState(handle, l, 'down');
     });
   }, HEARTBEAT_MS);
@@ -228,37 +279,42 @@ export function startInvalidationListener(handle: DbHandle): void {
   };
 }
 
-/** Stop the listener on `handle`; its caches are no longer shared. */
+/** Stop the listener on `handle`: its caches are no longer shared, and the others stop waiting for it. */
 export async function stopInvalidationListener(handle: DbHandle): Promise<void> {
   const l = listeners.get(handle.db);
   if (!l || l.stopped) return;
   l.stopped = true;
   if (l.timer) clearInterval(l.timer);
   setState(handle, l, 'off');
-  for (const resolve of l.echoes.values()) resolve();
-  l.echoes.clear();
+  for (const p of [...l.pending.values()]) p.done();
+  await send(handle, { kind: 'bye', from: l.from, n: ++l.n }).catch(() => {});
   await l.unlisten?.().catch(() => {});
 }
 
-/** The listener's state on `handle`: 'off' on PGlite or before it starts. */
+/**
+ * The listener's state on `handle`: 'off' on PGlite or before it starts; 'live' once it hears the
+ * channel and has heard the other processes for a full heartbeat ('connecting' until then).
+ */
 export function invalidationListenerState(handle: DbHandle): ListenerState {
-  return listeners.get(handle.db)?.state ?? 'off';
+  const l = listeners.get(handle.db);
+  if (!l) return 'off';
+  return l.state === 'live' && !knowsPeers(l) ? 'connecting' : l.state;
 }
 
-/** Resolves once the listener on `handle` is live; rejects after `timeoutMs`. */
-export function waitForInvalidationListener(handle: DbHandle, timeoutMs = 10_000): Promise<void> {
+const knowsPeers = (l: Listener) => performance.now() - l.liveSince >= HEARTBEAT_MS * 1.2;
+
+/**
+ * Resolves once the listener on `handle` is live and has listened for a full heartbeat (so it
+ * knows the other live processes, and waits for them when it writes); rejects after `timeoutMs`.
+ */
+export async function waitForInvalidationListener(handle: DbHandle, timeoutMs = 10_000): Promise<void> {
   const l = listeners.get(handle.db);
-  if (!l) return Promise.reject(new Error('No invalidation listener was started on this database handle.'));
-  if (l.state === 'live') return Promise.resolve();
-  return new Promise((resolve, reject) => {
-    const done = () => {
-      clearTimeout(t);
-      resolve();
-    };
-    const t = setTimeout(() => {
-      l.onLive.delete(done);
-      reject(new Error(`The invalidation listener was not live within ${timeoutMs} ms (state: ${l.state}).`));
-    }, timeoutMs);
-    l.onLive.add(done);
-  });
+  if (!l) throw new Error('No invalidation listener was started on this database handle.');
+  const deadline = performance.now() + timeoutMs;
+  for (;;) {
+    const now = performance.now();
+    if (l.state === 'live' && knowsPeers(l)) return;
+    if (now >= deadline) throw new Error(`The invalidation listener was not ready within ${timeoutMs} ms (state: ${l.state}).`);
+    await new Promise((r) => setTimeout(r, Math.min(50, deadline - now)));
+  }
 }

@@ -2,8 +2,9 @@ import 'server-only';
 
 // A short-lived cache for hot, rarely-changing reads (published wizard species, club settings).
 // Entries are kept per database handle, so tests that open several in-memory databases never
-// see each other's rows. Writers in this process bump the namespace's generation, which drops
-// its entries at once; the TTL bounds staleness when several processes share one PostgreSQL.
+// see each other's rows. Writers bump the namespace's generation, which drops its entries at once:
+// in this process directly, in the others on one PostgreSQL through their invalidation listeners
+// (lib/data/invalidation.ts). The TTL bounds staleness should a notification be missed.
 
 export type ReadNamespace = 'species' | 'settings';
 type Entry = { value: Promise<unknown>; expires: number; generation: number };

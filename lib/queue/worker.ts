@@ -7,6 +7,12 @@ import { handleMemberJob, handleRunJob, onMemberJobFailed, REMINDER_MEMBER_QUEUE
 // The queue's worker (meeting-note digests, weekly reminders), running inside the server process: one job at a time (a small club's mail
 // does not need more, and PGlite is one connection anyway). It polls for due jobs, and wakes at
 // once when this process queues one.
+//
+// Several processes on one PostgreSQL each run this worker; that is safe because the worker only
+// claims (FOR UPDATE SKIP LOCKED, one holder per job) and schedules nothing itself. Jobs are
+// queued by requests (a reminder run an administrator starts, a published note's digest) with a
+// dedupe key per piece of work, and a reminder reaches a member once a week by reminder_sends'
+// unique (week, member) row, whichever process works the job or works it again after a crash.
 
 interface Handler {
   run(job: Job): Promise<void>;

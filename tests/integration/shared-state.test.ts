@@ -1,14 +1,18 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import path from 'node:path';
 import { eq, sql } from 'drizzle-orm';
 import { openDatabase, type DbHandle } from '@/db/open';
 import { setDbHandle } from '@/db/client';
 import { seedSettings, seedUsers } from '@/db/seed';
+import { seedSpecies } from '@/db/seed-species';
 import { clubSettings, rateLimits, users } from '@/db/schema';
 import { isSignInBlocked, MAX_FAILURES_PER_EMAIL, recordSignInFailure, takeToken } from '@/lib/auth/rate-limit';
-import { takeHit } from '@/lib/data/rate-limits';
+import { pruneRateLimits, takeHit } from '@/lib/data/rate-limits';
 import { ACCOUNT_TTL_MS, invalidate } from '@/lib/auth/token-cache';
 import { findSessionAccount } from '@/lib/data/users';
 import { getClubSettings } from '@/lib/data/settings';
+import { getWizardSpecies } from '@/lib/data/species';
+import { startChild } from '../crash/child';
 import {
   announceInvalidation,
   INVALIDATION_CHANNEL,
@@ -212,7 +216,7 @@ if (serverUrl) {
       const heard: unknown[] = [];
       await other.listen(INVALIDATION_CHANNEL, (p) => {
         const m = JSON.parse(p) as { kind: string };
-        if (m.kind !== 'ping') heard.push(m);
+        if (['account', 'species', 'settings'].includes(m.kind)) heard.push(m);
       });
       await through(a, () => announceInvalidation({ kind: 'species' }));
       await announceInvalidation({ kind: 'account', id: memberId }, b);
@@ -223,6 +227,16 @@ if (serverUrl) {
       expect(got).toEqual([expect.objectContaining({ kind: 'species' }), expect.objectContaining({ kind: 'account', id: memberId })]);
     });
 
+    it('prunes only the rows whose windows are over', async () => {
+      const key = fresh('prune');
+      const now = intoMinute(5_000);
+      await through(a, () => takeToken(key, 5, 60_000, now - 120_000));
+      await through(a, () => takeToken(key, 5, 60_000, now));
+      await pruneRateLimits(a.db, now);
+      const left = await a.db.select({ windowStart: rateLimits.windowStart }).from(rateLimits).where(eq(rateLimits.key, key));
+      expect(left.map((r) => r.windowStart.getTime())).toEqual([intoMinute(0)]);
+    });
+
     it('reads every account afresh while the listener is stopped', async () => {
       await stopInvalidationListener(b);
       expect(invalidationListenerState(b)).toBe('off');
@@ -231,6 +245,64 @@ if (serverUrl) {
       await a.db.update(users).set({ role: 'editor' }).where(eq(users.id, memberId));
       expect(await role(b, memberId)).toBe('editor');
     });
+  });
+
+  // The other process is a real one here (tests/support/other-process.ts): it writes through the
+  // data layer, whose announcement must reach this process's listener before it answers.
+  describe('a write made by another server process', () => {
+    let b: DbHandle;
+    let dbUrl: string;
+    beforeAll(async () => {
+      dbUrl = await newServerDatabase(serverUrl);
+      b = await openDatabase({ databaseUrl: dbUrl });
+      cleanups.push(() => b.close());
+      await seedUsers(b.db);
+      await seedSettings(b.db);
+      await seedSpecies(b.db);
+      startInvalidationListener(b);
+      await waitForInvalidationListener(b);
+      setDbHandle(b);
+    }, 120_000);
+
+    async function inOtherProcess(...args: string[]) {
+      const child = startChild(args, { DATABASE_URL: dbUrl }, path.resolve(__dirname, '../support/other-process.ts'), [
+        '--require',
+        path.resolve(__dirname, '../crash/server-only-off.js'),
+      ]);
+      const { code } = await child.exited;
+      expect(code, child.stderr()).toBe(0);
+      expect(child.lines).toContain('done');
+    }
+    const account = async (email: string) => {
+      const [u] = await b.db.select({ id: users.id }).from(users).where(eq(users.email, email));
+      return findSessionAccount(u.id);
+    };
+
+    it('takes a role change into account on the very next read here', async () => {
+      expect((await account('member2@candlewise.test'))?.role).toBe('member');
+      await inOtherProcess('role', 'member2@candlewise.test', 'librarian');
+      expect((await account('member2@candlewise.test'))?.role).toBe('librarian');
+    }, 60_000);
+
+    it('ends the sessions of a sign-out on the very next read here', async () => {
+      const before = (await account('member@candlewise.test'))!.tokenVersion;
+      expect((await account('member@candlewise.test'))!.tokenVersion).toBe(before);
+      await inOtherProcess('sign-out', 'member@candlewise.test');
+      expect((await account('member@candlewise.test'))!.tokenVersion).toBe(before + 1);
+    }, 60_000);
+
+    it('shows new club settings and a newly published species to the wizard here at once', async () => {
+      const settingsBefore = await getClubSettings();
+      const speciesBefore = (await getWizardSpecies('pinus-sylvestris'))!;
+      const club = fresh('Riverside Pine Study Group');
+      await inOtherProcess('settings', club);
+      expect((await getClubSettings()).clubName).toBe(club);
+      expect(settingsBefore.clubName).not.toBe(club);
+      await inOtherProcess('publish', 'pinus-sylvestris', 'Riverside test pine');
+      const after = (await getWizardSpecies('pinus-sylvestris'))!;
+      expect(after.commonName).toBe('Riverside test pine');
+      expect(after.revision).toBe(speciesBefore.revision + 1);
+    }, 60_000);
   });
 } else {
   describe('one process on PGlite, as before', () => {
