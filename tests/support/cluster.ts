@@ -15,7 +15,7 @@ import { startFakeS3, type FakeS3 } from './fake-s3';
 
 const root = path.resolve(__dirname, '../..');
 
-export interface Postgres {
+interface Postgres {
   url: string;
   port: number;
   version: string;
@@ -43,7 +43,7 @@ function postgresBinDir(): string {
  * `candlewise` role, and its own `postgres` database as the app's database. Started as root, it
  * runs as the `postgres` user (the server refuses to run as root).
  */
-export async function startPostgres(): Promise<Postgres> {
+async function startPostgres(): Promise<Postgres> {
   const bin = postgresBinDir();
   const work = fs.mkdtempSync(path.join(os.tmpdir(), 'candlewise-cluster-pg-'));
   const port = await freePort();
@@ -78,7 +78,7 @@ export async function startPostgres(): Promise<Postgres> {
   return { url: `postgres://candlewise@127.0.0.1:${port}/postgres`, port, version, stop };
 }
 
-export interface ClusterApp extends NextProcess {
+interface ClusterApp extends NextProcess {
   name: 'A' | 'B';
   port: number;
 }
