@@ -143,7 +143,14 @@ describe("the wizard's cached species", () => {
     // An unknown species is remembered as unknown …
     for (let i = 0; i < 3; i++) expect((await anon.json('/api/wizard/evaluate', 'POST', ask(slug))).status).toBe(404);
     const from = (await anon.json('/api/species/pinus-sylvestris', 'GET')).body.species;
-    const record = { ...structuredClone(from.record), slug, botanicalName: `Pinus memoria${suffix}` };
+    // Names of its own, so searches for the Scots pine later in the run still find the Scots pine first.
+    const record = {
+      ...structuredClone(from.record),
+      slug,
+      botanicalName: `Pinus memoria${suffix}`,
+      commonNames: [`Memoria test pine ${suffix}`],
+      synonyms: [],
+    };
     const created = await editor.json('/api/species', 'POST', { record, body: '', summary: 'new', publish: true });
     expect(created.status).toBe(201);
     // … until it is published.
