@@ -113,7 +113,14 @@ describe('a species published through A', () => {
     expect(offlineBefore.body.species.map((s: { slug: string }) => s.slug)).not.toContain(slug);
 
     const from = (await editor.json('/api/species/pinus-sylvestris', 'GET')).body.species;
-    const record = { ...structuredClone(from.record), slug, botanicalName: `Pinus duoprocessus${suffix}` };
+    // Names of its own, so the soak's searches for the Scots pine still find the Scots pine first.
+    const record = {
+      ...structuredClone(from.record),
+      slug,
+      botanicalName: `Pinus duoprocessus${suffix}`,
+      commonNames: [`Two-process test pine ${suffix}`],
+      synonyms: [],
+    };
     const created = await editor.json('/api/species', 'POST', { record, body: '', summary: 'new', publish: true });
     expect(created.status).toBe(201);
 
