@@ -45,6 +45,20 @@ export default defineConfig({
           fileParallelism: false,
         },
       },
+      {
+        resolve: { alias },
+        test: {
+          // Two `next start` processes on one PostgreSQL server and one fake S3 bucket
+          // (tests/support/cluster.ts, the same cluster as `npm run demo:cluster`).
+          name: 'cluster',
+          include: ['tests/cluster/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/cluster/global-setup.ts'],
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
     ],
   },
 });

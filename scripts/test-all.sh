@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # The whole test pass: types, build, unit, integration on PGlite, the same integration suite
-# on a real PostgreSQL server, then the browser tests.
+# on a real PostgreSQL server, the cluster suite (two app processes on one PostgreSQL server and
+# a fake S3 bucket), then the browser tests.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
@@ -11,4 +12,5 @@ echo "── unit";                 npm run -s test:unit
 echo "── crash safety";         npm run -s test:crash
 echo "── integration (PGlite)"; npm run -s test:integration
 echo "── integration (PostgreSQL)"; bash scripts/with-postgres.sh npm run -s test:integration
+echo "── cluster (two processes, PostgreSQL, fake S3)"; npm run -s test:cluster
 echo "── e2e (Chromium)";       npm run -s test:e2e

@@ -3,7 +3,8 @@ import path from 'node:path';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { Client, signedIn } from '../support/http-client';
-import { gifJsPolyglot, htmlRenamedPng, hugePixelPng, jpegPhoto, oversizeJpegLike, pngPhoto, svgWithScript } from '../support/images';
+import { jpegPhoto, pngPhoto } from '../support/images';
+import { refusedUploads, upload } from '../support/upload-cases';
 
 const base = inject('baseUrl');
 const uploadsDir = path.join(inject('dataDir'), 'uploads');
@@ -15,15 +16,6 @@ function filesUnder(dir: string): string[] {
     .filter((d) => d.isFile())
     .map((d) => path.join(d.parentPath, d.name))
     .sort();
-}
-
-async function upload(c: Client, fields: Record<string, string>, file: Buffer, name: string, type: string) {
-  const form = new FormData();
-  for (const [k, v] of Object.entries(fields)) form.append(k, v);
-  form.append('file', new Blob([new Uint8Array(file)], { type }), name);
-  const res = await c.request('/api/uploads', { method: 'POST', body: form });
-  const text = await res.text();
-  return { status: res.status, body: text ? JSON.parse(text) : null };
 }
 
 async function newTree(c: Client, name: string) {
@@ -100,16 +92,7 @@ describe('photo uploads', () => {
     expect((await member.get(`/api/uploads/${id}`)).status).toBe(404);
   });
 
-  const bad: [string, () => Buffer | Promise<Buffer>, string, string, number][] = [
-    ['an SVG with a script', () => svgWithScript, 'shoot.svg', 'image/svg+xml', 415],
-    ['an SVG claiming to be a PNG', () => svgWithScript, 'shoot.png', 'image/png', 415],
-    ['HTML renamed .png', () => htmlRenamedPng, 'shoot.png', 'image/png', 415],
-    ['a GIF/JS polyglot', () => gifJsPolyglot(), 'shoot.gif', 'image/gif', 415],
-    ['a 20000 × 20000 PNG', () => hugePixelPng(), 'huge.png', 'image/png', 422],
-    ['a file over 10 MB', () => oversizeJpegLike(), 'big.jpg', 'image/jpeg', 413],
-    ['a body far over 10 MB', () => oversizeJpegLike(25 * 1024 * 1024), 'bigger.jpg', 'image/jpeg', 413],
-  ];
-  for (const [label, make, name, type, status] of bad) {
+  for (const { label, make, name, type, status } of refusedUploads) {
     it(`refuses ${label} with ${status} and writes nothing`, async () => {
       const before = filesUnder(uploadsDir);
       const listBefore = (await member.json(`/api/uploads?treeId=${treeId}`, 'GET')).body.items.length;

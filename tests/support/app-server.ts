@@ -79,42 +79,77 @@ export async function startApp(opts: { databaseUrl?: string; env?: Record<string
   });
   if (seed.status !== 0) throw new Error(`seed failed: ${seed.stderr}${seed.stdout}`);
 
+  const server = await spawnNext({ port, env });
+  return {
+    url: server.url,
+    port,
+    smtpPort,
+    dataDir,
+    process: server.process,
+    log: server.log,
+    stop: async () => {
+      await server.stop();
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+export interface NextProcess {
+  url: string;
+  process: ChildProcess;
+  log: () => string;
+  stop: () => Promise<void>;
+}
+
+/**
+ * `next start` of the built app on 127.0.0.1:`port` with `env` (which must name its own
+ * SMTP_FAKE_PORT); resolves once /api/health answers and the mail fake listens. `onOutput`
+ * sees the server's output as it comes (the cluster demo prints it).
+ */
+export async function spawnNext(opts: {
+  port: number;
+  env: Record<string, string>;
+  onOutput?: (chunk: string) => void;
+  detached?: boolean;
+}): Promise<NextProcess> {
   let output = '';
-  const child = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(port)], {
+  const child = spawn(path.join(root, 'node_modules/.bin/next'), ['start', '--hostname', '127.0.0.1', '--port', String(opts.port)], {
     cwd: root,
-    env: env as NodeJS.ProcessEnv,
+    env: opts.env as NodeJS.ProcessEnv,
     stdio: ['ignore', 'pipe', 'pipe'],
+    // Its own process group: a Ctrl-C in the terminal reaches the parent, which stops it in turn.
+    detached: opts.detached ?? false,
   });
-  child.stdout!.on('data', (d) => (output += d));
-  child.stderr!.on('data', (d) => (output += d));
-  const url = `http://127.0.0.1:${port}`;
+  const keep = (d: Buffer) => {
+    output += d;
+    opts.onOutput?.(String(d));
+  };
+  child.stdout!.on('data', keep);
+  child.stderr!.on('data', keep);
+  const url = `http://127.0.0.1:${opts.port}`;
+  const stop = async () => {
+    if (child.exitCode === null && child.signalCode === null) {
+      const exited = new Promise((r) => child.once('exit', r));
+      child.kill('SIGTERM');
+      await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
+      if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');
+    }
+  };
   const deadline = Date.now() + 60_000;
   for (;;) {
-    if (child.exitCode !== null) throw new Error(`server exited early:\n${output}`);
+    if (child.exitCode !== null || child.signalCode !== null) throw new Error(`server exited early:\n${output}`);
     try {
-      const res = await fetch(`${url}/api/health`);
+      // Bounded: whatever else holds the port may never answer.
+      const res = await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(2000) });
       if (res.ok && output.includes('mail fake listening')) break;
     } catch {
       /* not up yet */
     }
-    if (Date.now() > deadline) throw new Error(`server did not start:\n${output}`);
+    if (Date.now() > deadline) {
+      await stop();
+      throw new Error(`server did not start:\n${output}`);
+    }
     await new Promise((r) => setTimeout(r, 150));
   }
-  return {
-    url,
-    port,
-    smtpPort,
-    dataDir,
-    process: child,
-    log: () => output,
-    stop: async () => {
-      if (child.exitCode === null) {
-        const exited = new Promise((r) => child.once('exit', r));
-        child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
-      }
-      fs.rmSync(dataDir, { recursive: true, force: true });
-    },
-  };
+  return { url, process: child, log: () => output, stop };
 }

@@ -15,9 +15,10 @@ export interface FakeS3 {
   stop(): Promise<void>;
 }
 
-export async function startFakeS3(bucket = 'candlewise-photos'): Promise<FakeS3> {
+/** `port` 0 (the default) takes any free port. */
+export async function startFakeS3(bucket = 'candlewise-photos', port = 0): Promise<FakeS3> {
   const directory = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-s3-'));
-  const server = new S3rver({ address: '127.0.0.1', port: 0, silent: true, directory, configureBuckets: [{ name: bucket, configs: [] }] });
+  const server = new S3rver({ address: '127.0.0.1', port, silent: true, directory, configureBuckets: [{ name: bucket, configs: [] }] });
   const addr = await server.run();
   return {
     url: `http://127.0.0.1:${addr.port}`,
