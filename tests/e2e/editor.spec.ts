@@ -108,13 +108,13 @@ test('at 360 px a source tooltip and long import errors stay on screen', async (
 test('reverting asks first, then the history names the new revision and takes the focus', async ({ page }) => {
   await new SignInPage(page).withPassword('editor@candlewise.test');
   await page.goto(`/species/${SLUG}/history`);
-  await page.getByRole('button', { name: 'Revert to revision 1' }).click();
-  const confirm = page.getByRole('button', { name: 'Publish a copy of revision 1' });
+  await page.getByRole('button', { name: 'Revert to revision 1', exact: true }).click();
+  const confirm = page.getByRole('button', { name: 'Publish a copy of revision 1', exact: true });
   await expect(confirm).toBeFocused();
   await page.getByRole('button', { name: 'Keep as is' }).click();
-  await expect(page.getByRole('button', { name: 'Revert to revision 1' })).toBeFocused();
-  await page.getByRole('button', { name: 'Revert to revision 1' }).press('Enter');
-  await page.getByRole('button', { name: 'Publish a copy of revision 1' }).press('Enter');
+  await expect(page.getByRole('button', { name: 'Revert to revision 1', exact: true })).toBeFocused();
+  await page.getByRole('button', { name: 'Revert to revision 1', exact: true }).press('Enter');
+  await page.getByRole('button', { name: 'Publish a copy of revision 1', exact: true }).press('Enter');
   const notice = page.getByTestId('focus-notice');
   await expect(notice).toContainText(/Reverted: revision \d+ is a published copy of revision 1\./);
   await expect(notice).toBeFocused();

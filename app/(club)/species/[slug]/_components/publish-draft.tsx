@@ -1,5 +1,5 @@
 'use client';
-import { useRef, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { ApiError, sendJson } from '@/components/fetcher';
@@ -14,6 +14,10 @@ export function PublishDraft({ slug, revision }: { slug: string; revision: numbe
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<{ text: string; fields: string[] } | null>(null);
   const errorRef = useRef<HTMLDivElement>(null);
+  // Focus the refusal once it is on screen (after the render that shows it, not on a guessed frame).
+  useEffect(() => {
+    if (error) errorRef.current?.focus();
+  }, [error]);
 
   async function publish() {
     setBusy(true);
@@ -37,7 +41,6 @@ export function PublishDraft({ slug, revision }: { slug: string; revision: numbe
           : [];
       setError({ text: e instanceof ApiError ? e.body.message : 'The server could not be reached; try again.', fields });
       setBusy(false);
-      requestAnimationFrame(() => errorRef.current?.focus());
     }
   }
 
