@@ -18,6 +18,25 @@ async function cached(page: Page, cacheName: string, path: string): Promise<bool
   return page.evaluate(async ([c, p]) => !!(await (await caches.open(c)).match(new URL(p, location.origin).href)), [cacheName, path] as const);
 }
 
+/**
+ * Waits until the service worker is active and controls this page. The worker registers after
+ * the page is interactive and installs in the background; `clients.claim()` on activation can
+ * miss a page that was navigating at that moment, and the next navigation is then the one
+ * the worker controls, as it would be for a member. So: wait for an active worker, and
+ * reload while the page is still not controlled.
+ */
+async function controlledByWorker(page: Page) {
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await expect(async () => {
+    if (!(await page.evaluate(() => !!navigator.serviceWorker.controller))) {
+      await page.reload();
+      expect(await page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+    }
+  }).toPass({ timeout: 30_000, intervals: [500, 1_000, 2_000] });
+}
+
 const noOverflow = async (page: Page) =>
   expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
 
@@ -36,7 +55,7 @@ test('offline: the phone works the answer out, the save waits, and is sent once 
   await expect.poll(() => cached(page, 'member-data', '/api/trees')).toBe(true);
   await page.goto('/answers');
   await expect(page.getByRole('heading', { name: 'Your answers' })).toBeVisible();
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), { timeout: 30_000 }).toBe(true);
+  await controlledByWorker(page);
 
   await context.setOffline(true);
   await ask.open();
@@ -155,10 +174,7 @@ test('a saved answer the phone worked out differently shows both answers; offlin
 
   // Offline, the kept copy of the page says what needs a connection instead of pretending.
   // The worker registers after the page is interactive and installs in the background: wait for it.
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-  });
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), { timeout: 30_000 }).toBe(true);
+  await controlledByWorker(page);
   await page.reload();
   await context.setOffline(true);
   await page.reload();
