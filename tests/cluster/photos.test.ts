@@ -3,7 +3,7 @@ import sharp from 'sharp';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { Client, signedIn } from '../support/http-client';
 import { jpegPhoto, pngPhoto } from '../support/images';
-import { refusedUploads, upload } from '../support/upload-cases';
+import { pathNameTargets, refusedUploads, upload } from '../support/upload-cases';
 import { A, B, bucketKeys, newTree, sameBrowserOn } from './helpers';
 
 // Photos in the S3 bucket both processes share: an upload through A is served by B, only to those
@@ -82,6 +82,7 @@ describe('uploads the S3 store refuses', () => {
       expect(res.body.error.fields.file[0]).toBeTruthy();
       expect(await bucketKeys()).toEqual(before);
       expect(localFiles()).toEqual([]);
+      for (const p of pathNameTargets) expect(fs.existsSync(p), p).toBe(false);
       expect((await memberB.json(`/api/uploads?treeId=${treeId}`, 'GET')).body.items.length).toBe(listBefore);
     });
   }

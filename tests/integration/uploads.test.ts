@@ -4,7 +4,7 @@ import sharp from 'sharp';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { Client, signedIn } from '../support/http-client';
 import { jpegPhoto, pngPhoto } from '../support/images';
-import { refusedUploads, upload } from '../support/upload-cases';
+import { pathNameTargets, refusedUploads, upload } from '../support/upload-cases';
 
 const base = inject('baseUrl');
 const uploadsDir = path.join(inject('dataDir'), 'uploads');
@@ -100,6 +100,7 @@ describe('photo uploads', () => {
       expect(res.status).toBe(status);
       expect(res.body.error.fields.file[0]).toBeTruthy();
       expect(filesUnder(uploadsDir)).toEqual(before);
+      for (const p of pathNameTargets) expect(fs.existsSync(p), p).toBe(false);
       expect((await member.json(`/api/uploads?treeId=${treeId}`, 'GET')).body.items.length).toBe(listBefore);
     });
   }
