@@ -12,5 +12,5 @@ echo "── unit";                 npm run -s test:unit
 echo "── crash safety";         npm run -s test:crash
 echo "── integration (PGlite)"; npm run -s test:integration
 echo "── integration (PostgreSQL)"; bash scripts/with-postgres.sh npm run -s test:integration
-echo "── cluster (two processes, PostgreSQL, fake S3)"; npm run -s test:cluster
+echo "── cluster (two processes, PostgreSQL, fake S3; a ten-minute soak)"; CLUSTER_SOAK_SECONDS="${CLUSTER_SOAK_SECONDS:-600}" npm run -s test:cluster
 echo "── e2e (Chromium)";       npm run -s test:e2e

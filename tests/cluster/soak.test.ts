@@ -5,11 +5,13 @@ import { signedIn } from '../support/http-client';
 import { A, B, sameBrowserOn } from './helpers';
 
 // The benchmark's soak mix (bench/soak.ts: the wizard's evaluate, species search, a member's reads
-// and answer saves), spread over both processes at once with one member's session, for a short
-// while (CLUSTER_SOAK_SECONDS, default 30). Correctness only: no errors, no non-2xx answers, and
-// every answer saved through one process readable through the other. Speed is the benchmark's.
+// and answer saves) at its 10 connections, spread over both processes at once with one member's
+// session. The test pass runs the benchmark's ten minutes (scripts/test-all.sh sets
+// CLUSTER_SOAK_SECONDS=600); run alone, the suite soaks for 30 s. Correctness only: no errors, no
+// non-2xx answers, and every answer saved through one process readable through the other. Speed
+// and memory are the benchmark's.
 const SECONDS = Number(process.env.CLUSTER_SOAK_SECONDS ?? 30);
-const CONNECTIONS_PER_PROCESS = 4;
+const CONNECTIONS_PER_PROCESS = 5;
 
 describe('mixed traffic over both processes', () => {
   it(
@@ -74,16 +76,21 @@ describe('mixed traffic over both processes', () => {
       const readBack = async (base: string, ids: string[]) => {
         const c = sameBrowserOn(member, base);
         const unreadable: string[] = [];
-        for (const id of ids) {
-          const r = await c.get(`/api/answers/${id}`);
-          await r.body?.cancel();
-          if (r.status !== 200) unreadable.push(`${id}: ${r.status}`);
-        }
+        const queue = [...ids];
+        // Four readers at a time: ten minutes of saves are thousands of answers.
+        const reader = async () => {
+          for (let id = queue.shift(); id; id = queue.shift()) {
+            const r = await c.get(`/api/answers/${id}`);
+            await r.body?.cancel();
+            if (r.status !== 200) unreadable.push(`${id}: ${r.status}`);
+          }
+        };
+        await Promise.all([reader(), reader(), reader(), reader()]);
         return unreadable;
       };
       expect(await readBack(B, onA.saved)).toEqual([]);
       expect(await readBack(A, onB.saved)).toEqual([]);
     },
-    (SECONDS + 120) * 1000,
+    (SECONDS * 1.5 + 180) * 1000,
   );
 });
