@@ -9,7 +9,7 @@ import { invalidateReads } from './read-cache';
 // Cache invalidation across server processes on one PostgreSQL: LISTEN/NOTIFY on one channel.
 //
 // Every write that makes a cached read stale (an account's role, token version or name; a species
-// revision; the club settings) calls announceInvalidation() once it has committed. That drops the
+// revision; the club settings; a temperature record) calls announceInvalidation() once it has committed. That drops the
 // entries in this process at once and, on PostgreSQL, sends `pg_notify(candlewise_invalidate,
 // {"kind","id"?,"from","n"})`. Each process's listener (startInvalidationListener, started with the
 // server) drops the same entries in its own caches.
@@ -43,7 +43,9 @@ export type Invalidation =
   /** A species revision was written or published. */
   | { kind: 'species' }
   /** The club settings changed. */
-  | { kind: 'settings' };
+  | { kind: 'settings' }
+  /** A temperature record (the club's or a member's) was imported. */
+  | { kind: 'temperatures' };
 
 type Control =
   /** I am here, and whether my listener is live. */
@@ -92,6 +94,7 @@ function dropEverything() {
   invalidate();
   invalidateReads('species');
   invalidateReads('settings');
+  invalidateReads('temperatures');
 }
 
 function parse(payload: string): Wire | null {
@@ -104,6 +107,7 @@ function parse(payload: string): Wire | null {
         return { kind: 'account', id: typeof m.id === 'string' ? m.id : undefined, from, n };
       case 'species':
       case 'settings':
+      case 'temperatures':
       case 'bye':
         return { kind: m.kind, from, n };
       case 'ping':

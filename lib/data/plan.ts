@@ -60,8 +60,44 @@ async function planFor(actor: SessionUser, tree: TreeDto, today: string): Promis
     planRecordFor(actor, today, settings.hemisphere),
     observationsOf(actor.id, tree.id),
   ]);
-  const plan = planForTree({ species, tree: facts, today, hemisphere: settings.hemisphere, latitude: settings.defaultLatitude, record, observations });
+  const plan = memoPlan({ species, tree: facts, today, hemisphere: settings.hemisphere, latitude: settings.defaultLatitude, record, observations });
   return { ...plan, treeId: tree.id, today };
+}
+
+// A plan asks the engine about every day of the season (planForTree), which is most of a plan
+// request's time, while its inputs change seldom: the same plan is worked out again and again on
+// every visit, on "This week" and for the reminders. planForTree is a pure function of its input,
+// so its result is kept by that input. The species and the record are large; they come from the
+// read cache (read-cache.ts), where one object stands for one published revision or one state of
+// a record until a write drops it, so they enter the key as the identity of that object; the rest
+// enters as its value. Any change (a new revision, an import, an observation, a saved answer, a
+// tree edit, another day) is a different key, so nothing here needs invalidating; old keys age
+// out of the bounded map. Each process keeps its own; nothing in it can be stale.
+const PLAN_MEMO_SIZE = 500;
+const planMemo = new Map<string, TreePlan>();
+const objectIds = new WeakMap<object, number>();
+let nextObjectId = 1;
+const identity = (o: object | null | undefined) => {
+  if (!o) return 0;
+  let id = objectIds.get(o);
+  if (id === undefined) objectIds.set(o, (id = nextObjectId++));
+  return id;
+};
+
+function memoPlan(input: Parameters<typeof planForTree>[0]): TreePlan {
+  const { species, record, ...rest } = input;
+  const key = JSON.stringify([identity(species), identity(record), rest]);
+  const hit = planMemo.get(key);
+  if (hit) {
+    // Most recently used last, so the oldest is the first to go.
+    planMemo.delete(key);
+    planMemo.set(key, hit);
+    return hit;
+  }
+  const plan = planForTree(input);
+  planMemo.set(key, plan);
+  if (planMemo.size > PLAN_MEMO_SIZE) planMemo.delete(planMemo.keys().next().value!);
+  return plan;
 }
 
 /** The plan of the actor's own tree; 404 for anybody else's. Null when its species is unpublished. */

@@ -1,6 +1,8 @@
 import 'server-only';
 import { and, asc, desc, eq, gte, lte, sql } from 'drizzle-orm';
 import { getDb } from '@/db/client';
+import { announceInvalidation } from '@/lib/data/invalidation';
+import { cachedRead } from '@/lib/data/read-cache';
 import { answers, temperatureDays, temperatureRecords, treeObservations } from '@/db/schema';
 import { AppError } from '@/lib/errors';
 import { newPublicId } from '@/lib/ids';
@@ -107,6 +109,8 @@ export async function importRecord(actor: SessionUser, scope: RecordScope, csv: 
         .onConflictDoUpdate({ target: [temperatureDays.recordId, temperatureDays.day], set: { tmin: sql`excluded.tmin`, tmax: sql`excluded.tmax` } });
     }
   });
+  // Plans read the records through the read cache: drop them here and in every other process.
+  await announceInvalidation({ kind: 'temperatures' });
   return { imported: days.length, replaced: preview.replaces };
 }
 
@@ -161,7 +165,18 @@ export async function listRecords(actor: SessionUser, hemisphere: 'north' | 'sou
 }
 
 /** The record that covers a member's trees: their own if they keep one, else the club's. */
+/**
+ * The record a member's plans read: their own, else the club's; this season so far and up to ten
+ * earlier ones. Up to 3 650 days, read by every plan and "This week": kept in the read cache
+ * (importRecord drops it), so a cached value is one object that the plan memo
+ * (lib/data/plan.ts) can recognise.
+ */
 export async function planRecordFor(actor: Pick<SessionUser, 'id'>, today: string, hemisphere: 'north' | 'south'): Promise<PlanRecord | null> {
+  const db = await getDb();
+  return cachedRead(db, 'temperatures', `${actor.id}:${today}:${hemisphere}`, () => loadPlanRecord(actor, today, hemisphere));
+}
+
+async function loadPlanRecord(actor: Pick<SessionUser, 'id'>, today: string, hemisphere: 'north' | 'south'): Promise<PlanRecord | null> {
   const id = (await recordId(`member:${actor.id}`)) ?? (await recordId('club'));
   if (!id) return null;
   const start = seasonStart(today, hemisphere);

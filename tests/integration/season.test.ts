@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, inject, it } from 'vitest';
 import { Client, signedIn } from '../support/http-client';
+import { Fixtures } from './security/fixtures';
 
 const base = inject('baseUrl');
 const sample = fs.readFileSync(path.resolve(__dirname, '../fixtures/season/ghcnd-sample-ZZ000000001.csv'), 'utf8');
@@ -109,5 +110,50 @@ describe('temperature records, plans and calendars', () => {
     expect((await b.json(`/api/trees/${id}/plan`, 'GET')).status).toBe(404);
     expect((await b.get(`/api/trees/${id}/plan.ics`)).status).toBe(404);
     expect((await new Client(base).get(`/api/trees/${id}/plan.ics`)).status).toBe(401);
+  });
+  it('a plan read again follows at once an import of the member’s own record and a change to the tree', async () => {
+    // Plans are kept between visits (lib/data/plan.ts); each of these must still show on the next read.
+    const { client: m } = await new Fixtures(base).newMember('plan-memo');
+    const body = {
+      name: 'Memo Scots',
+      speciesSlug: 'pinus-sylvestris',
+      stageNotes: '',
+      containerShape: null,
+      containerLengthCm: null,
+      containerWidthCm: null,
+      acquiredOn: null,
+      collectedFromWild: false,
+      collectedOn: null,
+      notes: '',
+    };
+    const created = await m.json('/api/trees', 'POST', body);
+    expect(created.status).toBe(201);
+    const id = created.body.tree.id;
+    const first = await m.json(`/api/trees/${id}/plan`, 'GET');
+    expect(first.status).toBe(200);
+    expect((await m.json(`/api/trees/${id}/plan`, 'GET')).body).toEqual(first.body);
+
+    // The member's own record, warm from the first of the season to today: the heat sum to date
+    // now comes from it, whatever the club record or the latitude gave before.
+    const start = first.body.seasonStart as string;
+    const today = new Date().toISOString().slice(0, 10); // the server's today, as the plan route uses
+    const lines = ['date,tmin,tmax'];
+    for (let d = new Date(`${start}T00:00:00Z`); d.toISOString().slice(0, 10) <= today; d.setUTCDate(d.getUTCDate() + 1))
+      lines.push(`${d.toISOString().slice(0, 10)},14,26`);
+    const imported = await m.json('/api/season/records/import', 'POST', { scope: 'member', csv: lines.join('\n') + '\n' });
+    expect(imported.status, JSON.stringify(imported.body)).toBe(201);
+    const warm = await m.json(`/api/trees/${id}/plan`, 'GET');
+    // Mean 20 °C over the 5 °C base: 15 degree days a day, by the simple average method.
+    // source: "Growing degree-days: one equation, two interpretations", Agric. For. Meteorol. 87:291–300 (1997)
+    expect(warm.body.degreeDaysToDate).toBeCloseTo(15 * (lines.length - 1), 0);
+    expect(warm.body.degreeDaysToDate).not.toBe(first.body.degreeDaysToDate);
+
+    // Marked as collected from the wild today: the plan is worked out for a tree that must recover.
+    const edited = await m.json(`/api/trees/${id}`, 'PATCH', { collectedFromWild: true, collectedOn: today });
+    expect(edited.status, JSON.stringify(edited.body)).toBe(200);
+    const again = await m.json(`/api/trees/${id}/plan`, 'GET');
+    expect(again.status).toBe(200);
+    expect(again.body.windows).not.toEqual(warm.body.windows);
+    expect((await m.json(`/api/trees/${id}/plan`, 'GET')).body).toEqual(again.body);
   });
 });
