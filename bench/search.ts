@@ -125,8 +125,15 @@ const fuseOptions: IFuseOptions<Rec> = {
 interface AppSearch {
   buildSpeciesIndex: (items: Rec[]) => unknown;
   searchSpecies: (items: Rec[], q: string, index: unknown) => { item: Rec }[];
-  trigrams: (w: string) => string[];
-  normalizeText: (s: string) => string;
+  queryWords: (s: string) => string[];
+}
+
+/** Trigrams of a word padded as pg_trgm pads it (the comparator's own; the app keeps its private). */
+function trigrams(word: string): string[] {
+  const padded = `  ${word} `;
+  const out = new Set<string>();
+  for (let i = 0; i + 3 <= padded.length; i++) out.add(padded.slice(i, i + 3));
+  return [...out];
 }
 
 type Engine = { name: string; run: (q: string) => Promise<string[]> | string[] };
@@ -136,14 +143,12 @@ function shortlistFuse(items: Rec[], app: AppSearch) {
   const byGram = new Map<string, number[]>();
   items.forEach((it, i) => {
     const grams = new Set<string>();
-    for (const name of [it.botanicalName, ...it.commonNames, ...it.synonyms])
-      for (const w of app.normalizeText(name).split(' ')) for (const g of app.trigrams(w)) grams.add(g);
+    for (const name of [it.botanicalName, ...it.commonNames, ...it.synonyms]) for (const w of app.queryWords(name)) for (const g of trigrams(w)) grams.add(g);
     for (const g of grams) (byGram.get(g) ?? byGram.set(g, []).get(g)!).push(i);
   });
   return (q: string) => {
     const counts = new Map<number, number>();
-    for (const w of app.normalizeText(q).split(' '))
-      for (const g of app.trigrams(w)) for (const i of byGram.get(g) ?? []) counts.set(i, (counts.get(i) ?? 0) + 1);
+    for (const w of app.queryWords(q)) for (const g of trigrams(w)) for (const i of byGram.get(g) ?? []) counts.set(i, (counts.get(i) ?? 0) + 1);
     const short = [...counts]
       .sort((a, b) => b[1] - a[1])
       .slice(0, 50)
